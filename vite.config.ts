@@ -1,3 +1,4 @@
+import type { ClientRequest } from 'node:http';
 import { fileURLToPath } from 'node:url';
 import { defineConfig } from 'vitest/config';
 import react from '@vitejs/plugin-react';
@@ -11,6 +12,17 @@ const alias = {
   '@console': fromRoot('./console'),
 };
 
+// The API the dev server forwards to; the session cookie's Origin check expects the API's own origin.
+const apiOrigin = `http://127.0.0.1:${process.env.SWEEPLINE_PORT ?? 4620}`;
+const devProxyTo = (target: string) => ({
+  target,
+  changeOrigin: true,
+  configure: (proxy: { on: (event: 'proxyReq', listener: (request: ClientRequest) => void) => void }) =>
+    proxy.on('proxyReq', (request) => {
+      if (request.getHeader('origin')) request.setHeader('origin', target);
+    }),
+});
+
 // One config for the console build (root: console/) and for every test suite.
 export default defineConfig({
   root: fromRoot('./console'),
@@ -21,6 +33,13 @@ export default defineConfig({
     outDir: fromRoot('./dist/console'),
     emptyOutDir: true,
     sourcemap: false,
+  },
+  // `npm run dev:console`: hot-reloading console on 127.0.0.1:5173 in front of a running `npm start`.
+  server: {
+    host: '127.0.0.1',
+    port: 5173,
+    strictPort: true,
+    proxy: Object.fromEntries(['/v1', '/docs'].map((prefix) => [prefix, devProxyTo(apiOrigin)])),
   },
   test: {
     root: fromRoot('.'),
@@ -39,6 +58,8 @@ export default defineConfig({
         test: {
           name: 'api',
           root: fromRoot('.'),
+          // Only projects that need it start the test MariaDB (tests/support/global-setup.ts).
+          globalSetup: [fromRoot('./tests/support/global-setup.ts')],
           include: ['tests/api/**/*.test.ts', 'tests/contract/**/*.test.ts'],
           environment: 'node',
           testTimeout: 30_000,
@@ -50,6 +71,7 @@ export default defineConfig({
         test: {
           name: 'browser',
           root: fromRoot('.'),
+          globalSetup: [fromRoot('./tests/support/global-setup.ts')],
           include: ['tests/browser/**/*.test.ts'],
           environment: 'node',
           testTimeout: 90_000,

@@ -1,14 +1,15 @@
-import FFT from 'fft.js';
 import { EngineError } from './errors';
+import { complexFftBitReversedInput, complexFftPlan } from './fft-plan';
 
 /**
- * Real FFT helpers over fft.js (pure JS radix-4), in numpy's conventions so formulas from the literature carry
- * over unchanged: forward X[k] = Σ x[n]·e^(−j2πkn/N) with no scaling, one-sided (N/2 + 1 bins); inverse
- * scaled by 1/N. The inverse real transform runs as one half-size complex FFT (even/odd packing), which is
- * about twice as fast as a full complex inverse.
+ * Real FFT helpers in numpy's conventions, so formulas from the literature carry over unchanged: forward
+ * X[k] = Σ x[n]·e^(−j2πkn/N) with no scaling, one-sided (N/2 + 1 bins); inverse scaled by 1/N, imaginary parts
+ * of bins 0 and N/2 ignored (numpy.fft.rfft / irfft).
  *
- * fft.js builds a twiddle table per size; plans are cached per size (pure memoisation: results never depend
- * on the cache).
+ * Both directions run as one half-size complex FFT (fft-plan.ts) of z[n] = x[2n] + j·x[2n+1] plus an O(N)
+ * split step (the standard "two real sequences in one complex FFT" packing; Brigham, The Fast Fourier Transform
+ * and its Applications, 1988, §9-3). The forward transform works in its own output arrays, so it allocates only
+ * the result. Tables are memoised per size; results never depend on the cache.
  */
 export interface Spectrum {
   /** Real parts, bins 0..N/2. */
@@ -17,17 +18,7 @@ export interface Spectrum {
   im: Float64Array;
 }
 
-const plans = new Map<number, FFT>();
-
-function planFor(size: number): FFT {
-  let plan = plans.get(size);
-  if (!plan) {
-    plan = new FFT(size);
-    plans.set(size, plan);
-  }
-  return plan;
-}
-
+/** True for an integer power of two ≥ 2. */
 export function isPowerOfTwo(n: number): boolean {
   return Number.isInteger(n) && n >= 2 && (n & (n - 1)) === 0;
 }
@@ -40,27 +31,85 @@ export function nextPowerOfTwo(n: number): number {
 }
 
 function requireFftSize(fftSize: number): void {
-  if (!isPowerOfTwo(fftSize) || fftSize < 4) {
-    throw new EngineError('fft_size_invalid', `FFT size must be a power of two ≥ 4, got ${fftSize}.`);
+  if (!isPowerOfTwo(fftSize) || fftSize < 4 || fftSize > 2 ** 30) {
+    throw new EngineError('fft_size_invalid', `FFT size must be a power of two from 4 to 2^30, got ${fftSize}.`);
   }
 }
 
-/** One-sided spectrum of `signal`, zero-padded to `fftSize` (a power of two ≥ signal length). */
+/** cos/sin of 2πk/N for k = 0..N/4, the split-step twiddles of a real FFT of size N. */
+const splitTables = new Map<number, Float64Array>();
+
+function splitTwiddles(fftSize: number): Float64Array {
+  let table = splitTables.get(fftSize);
+  if (!table) {
+    const count = fftSize / 4 + 1;
+    table = new Float64Array(2 * count);
+    const quarter = fftSize / 4;
+    for (let k = 0; k < count; k++) {
+      // Above π/4 use the complementary angle, so cos(π/2) is exactly 0 and the table is symmetric.
+      const mirrored = 2 * k > quarter;
+      const angle = (2 * Math.PI * (mirrored ? quarter - k : k)) / fftSize;
+      table[2 * k] = mirrored ? Math.sin(angle) : Math.cos(angle);
+      table[2 * k + 1] = mirrored ? Math.cos(angle) : Math.sin(angle);
+    }
+    splitTables.set(fftSize, table);
+  }
+  return table;
+}
+
+/** One-sided spectrum of `signal` (numpy rfft), zero-padded to `fftSize` (a power of two ≥ signal length). */
 export function realFft(signal: ArrayLike<number>, fftSize: number): Spectrum {
   requireFftSize(fftSize);
   if (signal.length > fftSize) {
     throw new EngineError('fft_size_invalid', `Signal of ${signal.length} samples does not fit an FFT of ${fftSize}.`);
   }
-  const input = new Float64Array(fftSize);
-  input.set(signal as ArrayLike<number>);
-  const out = new Float64Array(2 * fftSize);
-  planFor(fftSize).realTransform(out, input);
-  const bins = fftSize / 2 + 1;
-  const re = new Float64Array(bins);
-  const im = new Float64Array(bins);
-  for (let k = 0; k < bins; k++) {
-    re[k] = out[2 * k];
-    im[k] = out[2 * k + 1];
+  const half = fftSize / 2;
+  const plan = complexFftPlan(half);
+  const reverse = plan.bitReversal;
+  // The half-size complex transform runs in bins 0..half−1 of the output arrays; bin `half` is set at the end.
+  const re = new Float64Array(half + 1);
+  const im = new Float64Array(half + 1);
+  const order = plan.permutationOrder;
+  const length = signal.length;
+  const pairs = length >> 1;
+  for (let i = 0; i < half; i++) {
+    const n = order[i];
+    if (n >= pairs) continue; // zero padding: already 0
+    const target = reverse[n];
+    re[target] = signal[2 * n];
+    im[target] = signal[2 * n + 1];
+  }
+  if (length % 2 === 1) re[reverse[pairs]] = signal[length - 1];
+  complexFftBitReversedInput(plan, re, im);
+
+  // X[k] = E + W^k·O and X[half−k] = conj(E − W^k·O), with E = (Z[k] + conj Z[half−k])/2,
+  // O = (Z[k] − conj Z[half−k])/(2j), W = e^(−j2π/N). Each pair (k, half−k) is read and written only here.
+  const table = splitTwiddles(fftSize);
+  const z0r = re[0];
+  const z0i = im[0];
+  re[0] = z0r + z0i;
+  im[0] = 0;
+  re[half] = z0r - z0i;
+  im[half] = 0;
+  for (let k = 1; k <= half / 2; k++) {
+    const m = half - k;
+    const ar = re[k];
+    const ai = im[k];
+    const br = re[m];
+    const bi = im[m];
+    const er = (ar + br) / 2;
+    const ei = (ai - bi) / 2;
+    // O = (A − conj B)/(2j): (dr + j·di)/(2j) = (di − j·dr)/2.
+    const or = (ai + bi) / 2;
+    const oi = -(ar - br) / 2;
+    const c = table[2 * k];
+    const s = -table[2 * k + 1];
+    const pr = or * c - oi * s;
+    const pi = or * s + oi * c;
+    re[k] = er + pr;
+    im[k] = ei + pi;
+    re[m] = er - pr;
+    im[m] = -(ei - pi);
   }
   return { re, im };
 }
@@ -75,32 +124,45 @@ export function inverseRealFft(spectrum: Spectrum, fftSize: number): Float64Arra
   if (spectrum.re.length !== half + 1 || spectrum.im.length !== half + 1) {
     throw new EngineError('fft_size_invalid', `Spectrum of ${spectrum.re.length} bins does not match an FFT of ${fftSize}.`);
   }
-  const { re, im } = spectrum;
-  // Pack: Z[k] = Xe[k] + j·Xo[k], with Xe[k] = (X[k] + conj X[N/2−k])/2, Xo[k] = (X[k] − conj X[N/2−k])·e^(+j2πk/N)/2.
-  const packed = new Float64Array(2 * half);
-  for (let k = 0; k < half; k++) {
-    const aRe = re[k];
-    const aIm = k === 0 ? 0 : im[k];
-    const bRe = re[half - k];
-    const bIm = k === 0 ? 0 : -im[half - k]; // conj(X[N/2 − k]); bin N/2 (k = 0) is real
-    const eRe = (aRe + bRe) / 2;
-    const eIm = (aIm + bIm) / 2;
-    const dRe = (aRe - bRe) / 2;
-    const dIm = (aIm - bIm) / 2;
-    const angle = (2 * Math.PI * k) / fftSize;
-    const c = Math.cos(angle);
-    const s = Math.sin(angle);
-    const oRe = dRe * c - dIm * s;
-    const oIm = dRe * s + dIm * c;
-    packed[2 * k] = eRe - oIm;
-    packed[2 * k + 1] = eIm + oRe;
-  }
-  const z = new Float64Array(2 * half);
-  planFor(half).inverseTransform(z, packed);
+  const { re: xr, im: xi } = spectrum;
+  const plan = complexFftPlan(half);
+  const reverse = plan.bitReversal;
+  const table = splitTwiddles(fftSize);
+  // The real parts are transformed in the first half of the output array and interleaved in place at the end.
   const out = new Float64Array(fftSize);
-  for (let n = 0; n < half; n++) {
-    out[2 * n] = z[2 * n];
-    out[2 * n + 1] = z[2 * n + 1];
+  const zr = out.subarray(0, half);
+  const zi = new Float64Array(half);
+  // Z[k] = E + j·O with E = (X[k] + conj X[half−k])/2 and O = (X[k] − conj X[half−k])·e^(+j2πk/N)/2; the inverse
+  // runs as conj(FFT(conj Z))/half, so conj Z is stored, at bit-reversed positions, in the cache-friendly order.
+  const order = plan.permutationOrder;
+  const quarter = half / 2;
+  for (let i = 0; i < half; i++) {
+    const k = order[i];
+    const m = half - k; // k = 0 pairs with bin `half`
+    const ar = xr[k];
+    const ai = k === 0 ? 0 : xi[k];
+    const br = xr[m];
+    const bi = k === 0 ? 0 : xi[m];
+    const er = (ar + br) / 2;
+    const ei = (ai - bi) / 2;
+    const dr = (ar - br) / 2;
+    const di = (ai + bi) / 2;
+    // e^(+j2πk/N) for k ≤ N/4 from the table; above, cos(π − θ) = −cos θ and sin(π − θ) = sin θ with θ = 2π(half−k)/N.
+    const c = k <= quarter ? table[2 * k] : -table[2 * m];
+    const s = k <= quarter ? table[2 * k + 1] : table[2 * m + 1];
+    const or = dr * c - di * s;
+    const oi = dr * s + di * c;
+    const target = reverse[k];
+    zr[target] = er - oi;
+    zi[target] = -(ei + or);
+  }
+  complexFftBitReversedInput(plan, zr, zi);
+  // Descending n writes out[2n], out[2n+1] ≥ n, so no real part still to be read is overwritten.
+  const scale = 1 / half;
+  for (let n = half - 1; n >= 0; n--) {
+    const real = out[n];
+    out[2 * n + 1] = -zi[n] * scale;
+    out[2 * n] = real * scale;
   }
   return out;
 }

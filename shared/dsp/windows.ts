@@ -1,4 +1,5 @@
 import { EngineError } from './errors';
+import { nextPowerOfTwo, realFft } from './fft';
 
 /**
  * Cosine-sum analysis windows, periodic form w[n] = Σ_k (−1)^k·a_k·cos(2πkn/N), n = 0..N−1
@@ -82,5 +83,54 @@ export function windowFigures(w: ArrayLike<number>): WindowFigures {
     coherentGain: sum / w.length,
     equivalentNoiseBandwidthBins: (w.length * sumSquares) / (sum * sum),
     sumOfSquares: sumSquares,
+  };
+}
+
+export interface WindowSidelobeFigures {
+  /** Highest sidelobe relative to the main-lobe peak, dB (negative). */
+  highestSidelobeDb: number;
+  /** −20·log10|W(½ bin)/W(0)|, dB (Harris 1978). */
+  scallopLossDb: number;
+  /** Distance from the peak to the first null of |W|, bins (measured). */
+  firstNullBins: number;
+}
+
+/**
+ * Highest sidelobe, scallop loss and first-null distance of a window, measured from its zero-padded spectrum
+ * (not copied from a table), so the figures stated in a result are those of the samples actually applied.
+ * `padFactor` sets the interpolation of the spectrum (default 64 points per bin).
+ */
+export function measureWindowSidelobes(
+  name: WindowName,
+  options: { length?: number; padFactor?: number } = {},
+): WindowSidelobeFigures {
+  const length = options.length ?? 1024;
+  const padFactor = options.padFactor ?? 64;
+  if (!Number.isInteger(padFactor) || padFactor < 2 || (padFactor & (padFactor - 1)) !== 0) {
+    throw new EngineError('window_pad_factor_invalid', `Pad factor must be a power of two ≥ 2, got ${padFactor}.`);
+  }
+  const w = windowSamples(name, length);
+  const size = nextPowerOfTwo(length * padFactor);
+  const spectrum = realFft(w, size);
+  const magnitude = new Float64Array(spectrum.re.length);
+  for (let k = 0; k < magnitude.length; k++) magnitude[k] = Math.hypot(spectrum.re[k], spectrum.im[k]);
+  const peak = magnitude[0];
+  const pointsPerBin = size / length;
+  // First local minimum well below the peak: a flat-top's passband ripple must not count as a null.
+  let firstNull = 1;
+  while (
+    firstNull + 1 < magnitude.length &&
+    (magnitude[firstNull + 1] < magnitude[firstNull] || magnitude[firstNull] > 0.01 * peak)
+  ) {
+    firstNull++;
+  }
+  let highest = 0;
+  for (let k = firstNull; k < magnitude.length; k++) highest = Math.max(highest, magnitude[k]);
+  const halfBin = magnitude[Math.round(pointsPerBin / 2)];
+  return {
+    // A rectangular window of exactly its own length has no sidelobes at all on the unpadded grid, hence padding.
+    highestSidelobeDb: 20 * Math.log10(highest / peak),
+    scallopLossDb: -20 * Math.log10(halfBin / peak),
+    firstNullBins: firstNull / pointsPerBin,
   };
 }

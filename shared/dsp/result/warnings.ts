@@ -20,7 +20,9 @@ export type WarningCode =
   | 'calibration_expired'
   | 'uncalibrated'
   | 'band_limit_beyond_range'
-  | 'far_field_assumption';
+  | 'far_field_assumption'
+  | 'few_golden_curves'
+  | 'mask_partial_coverage';
 
 export interface EngineWarning {
   code: WarningCode;

@@ -1,0 +1,32 @@
+import type { QueryClient } from '@tanstack/react-query';
+import { Outlet, createBrowserRouter } from 'react-router';
+import { AppLoading } from '@console/components/errors/app-loading';
+import { RouteError } from '@console/components/errors/route-error';
+import { paths } from '@console/config/paths';
+import { toLazyRoute } from './route-module';
+
+// Every screen is its own chunk, loaded when first visited; its loader starts the screen's queries meanwhile.
+export function createAppRouter(queryClient: QueryClient) {
+  const lazy = toLazyRoute(queryClient);
+  return createBrowserRouter([
+    {
+      Component: Outlet,
+      HydrateFallback: AppLoading,
+      ErrorBoundary: RouteError,
+      children: [
+        { path: paths.auth.signIn.path, lazy: () => import('./routes/auth/sign-in').then(lazy) },
+        { path: paths.auth.signUp.path, lazy: () => import('./routes/auth/sign-up').then(lazy) },
+        {
+          path: paths.app.root.path,
+          lazy: () => import('./routes/app/root').then(lazy),
+          children: [
+            { index: true, lazy: () => import('./routes/app/overview').then(lazy) },
+            { path: paths.app.members.path, lazy: () => import('./routes/app/members').then(lazy) },
+            { path: paths.app.apiKeys.path, lazy: () => import('./routes/app/api-keys').then(lazy) },
+          ],
+        },
+        { path: '*', lazy: () => import('./routes/not-found').then(lazy) },
+      ],
+    },
+  ]);
+}

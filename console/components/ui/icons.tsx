@@ -1,0 +1,33 @@
+import { cn } from '@console/utils/cn';
+
+// Line icons drawn for the console on a 20 px grid; decorative, so always aria-hidden.
+const paths = {
+  overview: 'M3 16.5h14M5 13.5l3-4 3 2.5 4-6M5 4v9.5',
+  members: 'M7.5 9a3 3 0 1 0 0-6 3 3 0 0 0 0 6ZM2.5 16.5c.6-2.8 2.6-4.5 5-4.5s4.4 1.7 5 4.5M13 4.2a2.6 2.6 0 0 1 0 5M14.5 12.3c1.5.6 2.5 2 2.9 4.2',
+  key: 'M6.5 6.5a3.5 3.5 0 1 0 0 7 3.5 3.5 0 0 0 0-7ZM10 10h7.5M14.5 10v2.5M17 10v2',
+  docs: 'M4 3.5h8.5l3.5 3.5v9.5H4zM12.5 3.5V7H16M7 10.5h6M7 13.5h4',
+  external: 'M11 3.5h5.5V9M16.5 3.5 9 11M14 12v4.5H3.5V6H8',
+  signOut: 'M8 16.5H4v-13h4M12 6.5l3.5 3.5-3.5 3.5M15.5 10H8',
+  copy: 'M7 7h9.5v9.5H7zM13 7V3.5H3.5V13H7',
+  check: 'M4 10.5 8 14.5 16 5.5',
+  plus: 'M10 4v12M4 10h12',
+} as const;
+
+export type IconName = keyof typeof paths;
+
+export function Icon({ name, className }: { name: IconName; className?: string }) {
+  return (
+    <svg
+      viewBox="0 0 20 20"
+      aria-hidden="true"
+      className={cn('size-5 shrink-0', className)}
+      fill="none"
+      stroke="currentColor"
+      strokeWidth="1.5"
+      strokeLinecap="round"
+      strokeLinejoin="round"
+    >
+      <path d={paths[name]} />
+    </svg>
+  );
+}

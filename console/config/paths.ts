@@ -1,0 +1,35 @@
+// Every console URL in one place: `path` for the router, `getHref` for links.
+export const paths = {
+  auth: {
+    signIn: {
+      path: '/sign-in',
+      getHref: (redirectTo?: string | null) =>
+        redirectTo && redirectTo !== '/' ? `/sign-in?redirectTo=${encodeURIComponent(redirectTo)}` : '/sign-in',
+    },
+    signUp: {
+      path: '/sign-up',
+      getHref: (redirectTo?: string | null) =>
+        redirectTo && redirectTo !== '/' ? `/sign-up?redirectTo=${encodeURIComponent(redirectTo)}` : '/sign-up',
+    },
+  },
+  app: {
+    root: { path: '/', getHref: () => '/' },
+    overview: { path: '', getHref: () => '/' },
+    members: { path: 'members', getHref: () => '/members' },
+    apiKeys: { path: 'api-keys', getHref: () => '/api-keys' },
+  },
+} as const;
+
+/** Only same-console paths may be followed after sign-in, so a crafted link cannot send the user elsewhere. */
+export function safeRedirectTarget(candidate: string | null | undefined): string {
+  const isConsolePath =
+    !!candidate &&
+    candidate.startsWith('/') &&
+    !candidate.startsWith('//') &&
+    !candidate.startsWith('/\\') &&
+    !/^\/(v1|docs)(\/|$|\?)/.test(candidate);
+  if (!candidate || !isConsolePath) {
+    return paths.app.root.getHref();
+  }
+  return candidate;
+}

@@ -1,0 +1,58 @@
+import { useState, type FormEvent } from 'react';
+import { Button } from '@console/components/ui/button';
+import { TextField } from '@console/components/ui/field';
+import { ProblemAlert } from '@console/components/ui/alert';
+import { fieldErrorsFromProblem } from '@console/lib/problem-message';
+import { fieldErrorsFromIssues, focusFirstInvalidField, type FieldErrors } from '@console/utils/form-errors';
+import { friendlyZodError } from '@console/utils/validation-messages';
+import type { Session } from '@shared/schemas/auth';
+import { PASSWORD_MIN_LENGTH, signUpInputSchema, useSignUp } from '../api/sign-up';
+
+export function SignUpForm({ onSignedUp }: { onSignedUp: (session: Session) => void }) {
+  const [clientErrors, setClientErrors] = useState<FieldErrors>({});
+  const signUp = useSignUp({ onSuccess: onSignedUp });
+  const errors = { ...fieldErrorsFromProblem(signUp.error), ...clientErrors };
+
+  const onSubmit = (event: FormEvent<HTMLFormElement>) => {
+    event.preventDefault();
+    const form = event.currentTarget;
+    const parsed = signUpInputSchema.safeParse(Object.fromEntries(new FormData(form)), { error: friendlyZodError });
+    if (!parsed.success) {
+      const found = fieldErrorsFromIssues(parsed.error.issues);
+      setClientErrors(found);
+      focusFirstInvalidField(form, found);
+      return;
+    }
+    setClientErrors({});
+    signUp.mutate(parsed.data);
+  };
+
+  return (
+    <form noValidate onSubmit={onSubmit} className="space-y-5">
+      {signUp.error && <ProblemAlert error={signUp.error} />}
+      <TextField label="Your name" name="displayName" autoComplete="name" error={errors.displayName} required />
+      <TextField label="Work e-mail" name="email" type="email" autoComplete="email" error={errors.email} required />
+      <TextField
+        label="Password"
+        name="password"
+        type="password"
+        autoComplete="new-password"
+        minLength={PASSWORD_MIN_LENGTH}
+        hint={`At least ${PASSWORD_MIN_LENGTH} characters. A short sentence is easier to remember than symbols.`}
+        error={errors.password}
+        required
+      />
+      <TextField
+        label="Organisation"
+        name="organisationName"
+        autoComplete="organization"
+        hint="Your lab or company. You become its owner and can invite others later."
+        error={errors.organisationName}
+        required
+      />
+      <Button type="submit" className="w-full" isPending={signUp.isPending}>
+        {signUp.isPending ? 'Creating your organisation…' : 'Create account'}
+      </Button>
+    </form>
+  );
+}

@@ -1,0 +1,31 @@
+import { drizzle, type MySql2Database } from 'drizzle-orm/mysql2';
+import mysql from 'mysql2/promise';
+import * as tables from './tables';
+
+export type Database = MySql2Database<typeof tables>;
+
+/** What a transaction callback receives; repositories accept either this or the Database. */
+export type Executor = Database | Parameters<Parameters<Database['transaction']>[0]>[0];
+
+export interface DatabaseHandle {
+  db: Database;
+  pool: mysql.Pool;
+  close(): Promise<void>;
+}
+
+export function createDatabase(url: string, options: { connectionLimit?: number } = {}): DatabaseHandle {
+  const pool = mysql.createPool({
+    uri: url,
+    connectionLimit: options.connectionLimit ?? 10,
+    // Dates are UTC both ways, whatever the server's own default time zone.
+    timezone: 'Z',
+    dateStrings: false,
+    supportBigNumbers: true,
+  });
+  pool.on('connection', (connection) => {
+    connection.query("SET time_zone = '+00:00'");
+  });
+  // 'planetscale' mode makes relational queries avoid LATERAL joins, which MariaDB rejects.
+  const db = drizzle(pool, { schema: tables, mode: 'planetscale' });
+  return { db, pool, close: () => pool.end() };
+}

@@ -1,0 +1,55 @@
+import type { Request, Response, Router } from 'express';
+import type { AppDeps } from '@server/deps';
+import { authenticate } from '@server/modules/auth/authenticate';
+import { ApiProblem } from './api-problem';
+import type { RouteDefinition } from './define-route';
+import { parseRequestPart } from './validation';
+
+function hasBody(req: Request): boolean {
+  const length = req.headers['content-length'];
+  return (length !== undefined && length !== '0') || req.headers['transfer-encoding'] !== undefined;
+}
+
+function readBody(req: Request): unknown {
+  if (hasBody(req) && !req.is(['application/json', 'application/*+json'])) {
+    throw new ApiProblem('unsupported_media_type', 'Send the body as JSON with "Content-Type: application/json".');
+  }
+  // A missing body is read as {} so the validation errors name the missing fields.
+  return req.body ?? {};
+}
+
+/** Checks a reply against its documented schema, so a handler cannot silently break the published contract. */
+function checkReply(route: RouteDefinition, status: number, body: unknown) {
+  const spec = route.responses[status];
+  if (!spec) throw new Error(`${route.operationId} replied ${status}, which is not documented`);
+  if (!spec.schema) return;
+  const result = spec.schema.safeParse(body);
+  if (!result.success) throw new Error(`${route.operationId} ${status} reply does not match its schema: ${result.error.message}`);
+}
+
+function handle(route: RouteDefinition, deps: AppDeps) {
+  return async (req: Request, res: Response) => {
+    // Access before validation: an anonymous caller learns nothing about the input rules.
+    const { principal, user } = await authenticate(deps, req, res, route.access);
+    const params = route.request.params ? parseRequestPart(route.request.params, req.params, 'path') : {};
+    const query = route.request.query ? parseRequestPart(route.request.query, req.query, 'query') : {};
+    if (route.request.headers) parseRequestPart(route.request.headers, req.headers, 'header');
+    const body = route.request.body ? parseRequestPart(route.request.body, readBody(req), 'body') : undefined;
+    // Later middleware and the handler see only parsed values (Express 5 exposes req.query as a getter).
+    Object.defineProperty(req, 'query', { value: query, writable: true, configurable: true });
+    req.params = params as Request['params'];
+    req.body = body;
+
+    const reply = await route.handler({ params, query, body, principal, user, deps, req, res } as never);
+    // A handler that streamed its own body (downloads) has already answered.
+    if (res.headersSent) return;
+    if (deps.config.validateResponses) checkReply(route, reply.status, reply.body);
+    for (const [name, value] of Object.entries(reply.headers ?? {})) res.setHeader(name, value);
+    if (reply.body === undefined) res.status(reply.status).end();
+    else res.status(reply.status).json(reply.body);
+  };
+}
+
+export function mountRoutes(router: Router, routes: RouteDefinition[], deps: AppDeps): void {
+  for (const route of routes) router[route.method](route.expressPath, handle(route, deps));
+}

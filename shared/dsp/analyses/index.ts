@@ -1,0 +1,11 @@
+export * from './capture-checks';
+export * from './curve-output-options';
+export * from './sweep-response-options';
+export * from './sweep-response-types';
+export { analyzeSweepResponse } from './sweep-response';
+export * from './stepped-response-options';
+export * from './stepped-response';
+export * from './calibrator-capture';
+export { magnitudeScale, type MagnitudeScale } from './magnitude-reference';
+export { deriveCurveOutputs, toReferenceSpec, type DerivedCurveOutputs } from './derived-curve-outputs';
+export { analyzeSpectrum, type SpectrumResult, type SpectrumFigures, type SpectrumCurves, type SpectrumInput, type SpectrumAnalysisOptions } from './spectrum';

@@ -1,0 +1,4 @@
+export * from './levels';
+export * from './weighting';
+export * from './bands';
+export * from './acoustics';
