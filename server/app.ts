@@ -7,6 +7,7 @@ import { ApiProblem } from './http/api-problem';
 import { apiFallback } from './http/api-fallback';
 import { csrfOriginCheck } from './http/csrf';
 import { errorHandler } from './http/error-handler';
+import { recordRawBodyFingerprint } from './http/idempotency';
 import { mountRoutes } from './http/mount-routes';
 import { requestId, requestIdOf } from './http/request-id';
 import { securityHeaders } from './http/security-headers';
@@ -32,6 +33,11 @@ export function createApp(deps: AppDeps, options: CreateAppOptions = {}): Expres
       logger: deps.logger,
       genReqId: (req) => requestIdOf(req as express.Request),
       customLogLevel: (_req, res, error) => (error || res.statusCode >= 500 ? 'error' : res.statusCode >= 400 ? 'warn' : 'info'),
+      // One short line per request; headers (credentials among them) stay out of the log.
+      serializers: {
+        req: (req: { id: string; method: string; url: string }) => ({ id: req.id, method: req.method, url: req.url }),
+        res: (res: { statusCode: number }) => ({ statusCode: res.statusCode }),
+      },
     }),
   );
   app.use(securityHeaders({ https: config.publicOrigin.startsWith('https:') }));
@@ -43,7 +49,8 @@ export function createApp(deps: AppDeps, options: CreateAppOptions = {}): Expres
     res.setHeader('Cache-Control', 'no-store');
     next();
   });
-  v1.use(express.json({ limit: config.jsonBodyLimitBytes, type: ['application/json', 'application/*+json'] }));
+  // verify keeps the SHA-256 of the raw bytes: the Idempotency-Key fingerprint (server/http/idempotency.ts).
+  v1.use(express.json({ limit: config.jsonBodyLimitBytes, type: ['application/json', 'application/*+json'], verify: recordRawBodyFingerprint }));
   v1.use(csrfOriginCheck(config.publicOrigin));
   mountRoutes(v1, v1Routes, deps);
   v1.use(apiFallback(v1Routes));

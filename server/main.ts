@@ -10,6 +10,9 @@ import type { AppDeps } from './deps';
 import { systemClock } from './lib/clock';
 import { createLogger } from './lib/logger';
 import { ensureConsoleBuilt } from './web/console-build';
+import { startIdempotencyPruner } from './http/idempotency';
+import { startRateLimitPruner } from './http/rate-limit';
+import { startWebhookDispatcher } from './webhooks/dispatcher';
 
 const redactUrl = (url: string) => url.replace(/\/\/([^:/@]+):[^@]*@/, '//$1:***@');
 
@@ -29,6 +32,9 @@ async function main() {
   const consoleBuild = await ensureConsoleBuilt(logger);
 
   const server = createApp(deps, { consoleDir: consoleBuild.dir }).listen(config.port, config.host);
+  // Webhook deliveries and the expiry of idempotency records / rate-limit windows (any number of processes may run these).
+  const webhookDispatcher = startWebhookDispatcher(deps);
+  const stopPruners = [startIdempotencyPruner(deps), startRateLimitPruner(deps)];
   await once(server, 'listening');
   const { port } = server.address() as AddressInfo;
   process.stdout.write(
@@ -44,8 +50,12 @@ async function main() {
     const force = setTimeout(() => server.closeAllConnections(), 5000);
     force.unref();
     server.closeIdleConnections();
+    stopPruners.forEach((stopPruner) => stopPruner());
     server.close(() => {
-      void database.close().finally(() => process.exit(0));
+      void webhookDispatcher
+        .stop()
+        .then(() => database.close())
+        .finally(() => process.exit(0));
     });
   };
   process.on('SIGINT', () => stop('SIGINT'));

@@ -13,7 +13,11 @@ type NavGroup = { label: string; items: NavEntry[] };
 const groups: NavGroup[] = [
   {
     label: 'Workspace',
-    items: [{ label: 'Overview', icon: 'overview', to: paths.app.root.getHref(), end: true }],
+    items: [
+      { label: 'Overview', icon: 'overview', to: paths.app.root.getHref(), end: true },
+      { label: 'Analyses', icon: 'analyses', to: paths.app.analyses.getHref(), requires: 'analyses:read' },
+      { label: 'Compare', icon: 'compare', to: paths.app.compare.getHref(), requires: 'analyses:read' },
+    ],
   },
   {
     label: 'Organisation',

@@ -17,6 +17,16 @@ export const paths = {
     overview: { path: '', getHref: () => '/' },
     members: { path: 'members', getHref: () => '/members' },
     apiKeys: { path: 'api-keys', getHref: () => '/api-keys' },
+    analyses: { path: 'analyses', getHref: (search?: string) => (search ? `/analyses?${search}` : '/analyses') },
+    analysis: {
+      path: 'analyses/:analysisId',
+      getHref: (analysisId: string, besideId?: string) =>
+        `/analyses/${encodeURIComponent(analysisId)}${besideId ? `?beside=${encodeURIComponent(besideId)}` : ''}`,
+    },
+    compare: {
+      path: 'compare',
+      getHref: (analysisIds: readonly string[] = []) => (analysisIds.length ? `/compare?ids=${analysisIds.map(encodeURIComponent).join(',')}` : '/compare'),
+    },
   },
 } as const;
 

@@ -3,7 +3,7 @@
 // Plain Node with no npm dependencies, because it runs before they are installed.
 import { spawn } from 'node:child_process';
 import { ensureNpmDependencies } from './lib/npm-deps.mjs';
-import { exitOnBootstrapError, say } from './lib/log.mjs';
+import { exitOnBootstrapError, say, stopWhenOrphaned } from './lib/log.mjs';
 import { fromRoot } from './lib/paths.mjs';
 import { startDevDatabase } from './lib/instances.mjs';
 
@@ -27,6 +27,7 @@ async function main() {
   };
   process.on('SIGINT', forward);
   process.on('SIGTERM', forward);
+  stopWhenOrphaned(() => forward('SIGTERM'));
 
   const [code, signal] = await new Promise((resolve) => server.on('exit', (...args) => resolve(args)));
   // The database keeps its data in .data/; a MariaDB started by this run is stopped cleanly with the server.

@@ -5,7 +5,7 @@ import { spawn } from 'node:child_process';
 import fs from 'node:fs';
 import { aptInstall } from './lib/apt.mjs';
 import { ensureNpmDependencies } from './lib/npm-deps.mjs';
-import { exitOnBootstrapError, say } from './lib/log.mjs';
+import { exitOnBootstrapError, say, stopWhenOrphaned } from './lib/log.mjs';
 import { fromRoot } from './lib/paths.mjs';
 import { acquireTestDatabaseServer } from './lib/instances.mjs';
 
@@ -28,6 +28,7 @@ async function main() {
   };
   process.on('SIGINT', forward);
   process.on('SIGTERM', forward);
+  stopWhenOrphaned(() => forward('SIGTERM'));
   const [code, signal] = await new Promise((resolve) => vitest.on('exit', (...args) => resolve(args)));
   await database.release();
   process.exit(code ?? (signal ? 1 : 0));

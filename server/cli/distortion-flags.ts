@@ -74,9 +74,11 @@ export function commonDistortionOptionsFromFlags(args: ParsedArgs): CommonDistor
     upperLimitHz: numberFlag(args, 'upper-limit-hz'),
     marginDb: numberFlag(args, 'margin-db'),
     thdHeadline: stringFlag(args, 'thd-headline') as CommonDistortionOptions['thdHeadline'],
-    screening: screeningText === 'off' ? false : screeningOrders ? { fromOrder: screeningOrders[0], toOrder: screeningOrders[1] } : undefined,
+    screening: (screeningText === 'off' ? false : screeningOrders ? { fromOrder: screeningOrders[0], toOrder: screeningOrders[1] } : undefined) as
+      | CommonDistortionOptions['screening']
+      | undefined,
     summary: Object.keys(summary).length > 0 ? summary : undefined,
-  });
+  }) as CommonDistortionOptions;
 }
 
 export function sweepDistortionOptionsFromFlags(args: ParsedArgs, withGrid: boolean): SweepDistortionOptions {
@@ -112,12 +114,13 @@ export function toneOptionsFromFlags(args: ParsedArgs): ToneDistortionOptions & 
   return defined({
     ...commonDistortionOptionsFromFlags(args),
     method: stringFlag(args, 'method') as ToneDistortionOptions['method'],
-    window: windowName === undefined ? undefined : windowName === 'bh4' ? 'blackman_harris_4' : windowName === 'bh7' ? 'blackman_harris_7' : (windowName as never),
+    // Anything but bh4/bh7 goes through unchanged, so the engine names it in its error.
+    window: (windowName === 'bh4' ? 'blackman_harris_4' : windowName === 'bh7' ? 'blackman_harris_7' : windowName) as ToneDistortionOptions['window'],
     thdPlusNoise: Object.keys(thdPlusNoise).length > 0 ? thdPlusNoise : undefined,
     minSnrDb: numberFlag(args, 'min-snr-db'),
     residualPointsPerOctave: numberFlag(args, 'residual-ppo'),
     levelCalibration: dbfsAtOnePascal === undefined ? undefined : { dbfsAtOnePascal },
-  });
+  }) as ToneDistortionOptions & SteppedDistortionOptions;
 }
 
 export function singleToneSettingsFromFlags(args: ParsedArgs): ToneDistortionOptions {

@@ -22,6 +22,9 @@ const TAGS = [
   { name: 'Members', description: 'Members of an organisation, their roles and permissions.' },
   { name: 'API keys', description: 'Keys for rigs and scripts.' },
   { name: 'Audit', description: 'The organisation\'s audit log.' },
+  { name: 'Stimuli', description: 'Test signals defined by parameters, regenerated deterministically. Mind the safety cautions.' },
+  { name: 'Captures', description: 'Uploaded WAV captures, validated on arrival and stored by content hash.' },
+  { name: 'Analyses', description: 'Asynchronous analysis jobs and their results, with every convention stated.' },
 ];
 
 const SECURITY_SCHEMES = {

@@ -1,8 +1,9 @@
 import type { Request, Response } from 'express';
-import type { z } from 'zod';
+import { z } from 'zod';
 import type { ProblemCode } from '@shared/problems';
 import type { Permission } from '@shared/schemas/permissions';
 import type { AppDeps } from '@server/deps';
+import { idempotencySettingOf, type IdempotencyHandle, type IdempotencyOption, type IdempotencySetting } from './idempotency';
 import type { Principal, SignedInUser } from './principal';
 
 /**
@@ -52,6 +53,8 @@ export interface HandlerContext<P, Q, B, A extends AuthKind | undefined> {
   deps: AppDeps;
   req: Request;
   res: Response;
+  /** Idempotency-Key state; routes with fingerprint 'handler' call `idempotency.claim(fingerprint)`. */
+  idempotency: IdempotencyHandle;
 }
 
 export interface RouteSpec<
@@ -77,6 +80,10 @@ export interface RouteSpec<
   responses: R;
   /** Problem codes this route can answer with beyond the ones implied by its inputs and access. */
   problems?: ProblemCode[];
+  /** Idempotency-Key handling (server/http/idempotency.ts): 'required' on every POST that creates. */
+  idempotency?: IdempotencyOption;
+  /** Count the request against the caller's per-minute rate limit (server/http/rate-limit.ts). Default: true for routes with a principal. */
+  rateLimit?: boolean;
   handler(context: HandlerContext<Parsed<P>, Parsed<Q>, Parsed<B>, A>): Promise<Reply<NoInfer<R>>>;
 }
 
@@ -94,6 +101,8 @@ export interface RouteDefinition {
   request: { params?: z.ZodType; query?: z.ZodType; body?: z.ZodType; headers?: z.ZodObject; bodyContent?: BodyContent };
   responses: ResponseSpecs;
   problems: ProblemCode[];
+  idempotency: IdempotencySetting | null;
+  rateLimit: boolean;
   handler(context: HandlerContext<unknown, unknown, unknown, AuthKind | undefined>): Promise<{
     status: number;
     body?: unknown;
@@ -117,6 +126,16 @@ export function defineRoute<
     throw new Error(`Route ${spec.method.toUpperCase()} ${spec.path} must name exactly one of permission or auth`);
   }
   const access: RouteAccess = spec.permission ? { kind: 'permission', permission: spec.permission } : { kind: spec.auth as AuthKind };
+  const idempotency = idempotencySettingOf(spec.idempotency);
+  const rateLimit = spec.rateLimit ?? (access.kind !== 'public' && access.kind !== 'session');
+  const request = { ...(spec.request ?? {}) };
+  const problems = [...(spec.problems ?? [])];
+  if (idempotency) {
+    request.headers = withIdempotencyKeyHeader(request.headers, idempotency);
+    problems.push('idempotency_key_invalid', 'idempotency_key_reused', 'idempotency_request_in_progress');
+    if (idempotency.mode === 'required') problems.push('idempotency_key_missing');
+  }
+  if (rateLimit) problems.push('quota_exceeded');
   return {
     method: spec.method,
     path: spec.path,
@@ -126,9 +145,23 @@ export function defineRoute<
     summary: spec.summary,
     description: spec.description,
     tags: spec.tags,
-    request: spec.request ?? {},
+    request,
     responses: spec.responses,
-    problems: spec.problems ?? [],
+    problems: [...new Set(problems)],
+    idempotency,
+    rateLimit,
     handler: spec.handler as RouteDefinition['handler'],
   };
+}
+
+/** Documents the Idempotency-Key header; its rules are checked by server/http/idempotency.ts, not by the schema. */
+function withIdempotencyKeyHeader(headers: z.ZodObject | undefined, setting: IdempotencySetting): z.ZodObject {
+  const description =
+    (setting.mode === 'required' ? '**Required.** ' : 'Optional. ') +
+    'Client-chosen key (1–255 visible ASCII characters; a UUID v4 is recommended) naming this request: a retry with the ' +
+    'same key and the same body replays the first response (header `Idempotent-Replayed: true`) instead of creating ' +
+    'a second object. Same key with another body: 422 `idempotency_key_reused`; while the first is still running: 409 ' +
+    '`idempotency_request_in_progress`. Keys are kept 24 h per organisation and endpoint.';
+  const header = z.string().optional().meta({ description, example: '6f1d2c3a-8b4e-4f5a-9c7d-1e2f3a4b5c6d' });
+  return headers ? headers.extend({ 'idempotency-key': header }) : z.object({ 'idempotency-key': header });
 }

@@ -44,7 +44,8 @@ export function errorHandler(options: { logger: Logger; jsonBodyLimitBytes: numb
     if (error instanceof ApiProblem) return sendProblem(req, res, error);
     const mapped = error && typeof error === 'object' ? problemFromFrameworkError(error as HttpLikeError, options.jsonBodyLimitBytes) : null;
     if (mapped) return sendProblem(req, res, mapped);
-    (req as Request & { log?: Logger }).log?.error({ err: error }, 'unhandled error') ?? options.logger.error({ err: error }, 'unhandled error');
+    const log = (req as Request & { log?: Logger }).log ?? options.logger;
+    log.error({ err: error }, 'unhandled error');
     sendProblem(req, res, new ApiProblem('internal_error', 'An unexpected error occurred. Quote the request id when reporting it.'));
   };
 }

@@ -2,6 +2,9 @@ import type { Request, Response, Router } from 'express';
 import type { AppDeps } from '@server/deps';
 import { authenticate } from '@server/modules/auth/authenticate';
 import { ApiProblem } from './api-problem';
+import { IdempotencyRequest, IdempotentReplay, NO_IDEMPOTENCY, rawBodyFingerprint, sendReplay } from './idempotency';
+import { problemBody } from './problem-response';
+import { chargeRequest, isUnchargedStatus } from './rate-limit';
 import type { RouteDefinition } from './define-route';
 import { parseRequestPart } from './validation';
 
@@ -31,22 +34,46 @@ function handle(route: RouteDefinition, deps: AppDeps) {
   return async (req: Request, res: Response) => {
     // Access before validation: an anonymous caller learns nothing about the input rules.
     const { principal, user } = await authenticate(deps, req, res, route.access);
-    const params = route.request.params ? parseRequestPart(route.request.params, req.params, 'path') : {};
-    const query = route.request.query ? parseRequestPart(route.request.query, req.query, 'query') : {};
-    if (route.request.headers) parseRequestPart(route.request.headers, req.headers, 'header');
-    const body = route.request.body ? parseRequestPart(route.request.body, readBody(req), 'body') : undefined;
-    // Later middleware and the handler see only parsed values (Express 5 exposes req.query as a getter).
-    Object.defineProperty(req, 'query', { value: query, writable: true, configurable: true });
-    req.params = params as Request['params'];
-    req.body = body;
+    // Counted only once the caller is known and allowed (401/403 are never charged); refunded below when refused.
+    const charge = route.rateLimit && principal ? await chargeRequest(deps, principal, res) : null;
+    let idempotency: IdempotencyRequest | null = null;
+    try {
+      const params = route.request.params ? parseRequestPart(route.request.params, req.params, 'path') : {};
+      const query = route.request.query ? parseRequestPart(route.request.query, req.query, 'query') : {};
+      if (route.request.headers) parseRequestPart(route.request.headers, req.headers, 'header');
+      const body = route.request.body ? parseRequestPart(route.request.body, readBody(req), 'body') : undefined;
+      // Later middleware and the handler see only parsed values (Express 5 exposes req.query as a getter).
+      Object.defineProperty(req, 'query', { value: query, writable: true, configurable: true });
+      req.params = params as Request['params'];
+      req.body = body;
 
-    const reply = await route.handler({ params, query, body, principal, user, deps, req, res } as never);
-    // A handler that streamed its own body (downloads) has already answered.
-    if (res.headersSent) return;
-    if (deps.config.validateResponses) checkReply(route, reply.status, reply.body);
-    for (const [name, value] of Object.entries(reply.headers ?? {})) res.setHeader(name, value);
-    if (reply.body === undefined) res.status(reply.status).end();
-    else res.status(reply.status).json(reply.body);
+      // After validation: a request refused by its schema or by access stores no idempotency record.
+      if (route.idempotency && principal) {
+        idempotency = IdempotencyRequest.begin(deps, req, route.idempotency, principal.organisationId, route.method, route.path);
+        if (route.idempotency.fingerprint === 'body') await idempotency.claim(rawBodyFingerprint(req));
+      }
+
+      const reply = await route.handler({ params, query, body, principal, user, deps, req, res, idempotency: idempotency ?? NO_IDEMPOTENCY } as never);
+      if (idempotency?.key && !idempotency.claimed && deps.config.nodeEnv !== 'production') {
+        throw new Error(`${route.operationId} received an Idempotency-Key but its handler never claimed it`);
+      }
+      // A handler that streamed its own body (downloads) has already answered.
+      if (res.headersSent) return;
+      if (deps.config.validateResponses) checkReply(route, reply.status, reply.body);
+      await idempotency?.complete(reply.status, reply.headers ?? {}, reply.body);
+      for (const [name, value] of Object.entries(reply.headers ?? {})) res.setHeader(name, value);
+      if (reply.body === undefined) res.status(reply.status).end();
+      else res.status(reply.status).json(reply.body);
+    } catch (error) {
+      if (error instanceof IdempotentReplay) return sendReplay(res, error.record);
+      const status = error instanceof ApiProblem ? error.status : 500;
+      if (charge && isUnchargedStatus(status)) await charge.refund();
+      if (idempotency) {
+        const problem = error instanceof ApiProblem ? error : new ApiProblem('internal_error', 'An unexpected error occurred. Quote the request id when reporting it.');
+        await idempotency.fail(status, problemBody(req, problem));
+      }
+      throw error;
+    }
   };
 }
 

@@ -1,5 +1,5 @@
 import type { Request, Response } from 'express';
-import { PROBLEMS, problemTypeUri, type ProblemCode } from '@shared/problems';
+import { PROBLEMS, problemTypeUri } from '@shared/problems';
 import type { Problem } from '@shared/schemas/problem';
 import { ApiProblem } from './api-problem';
 import { requestIdOf } from './request-id';
@@ -22,8 +22,4 @@ export function problemBody(req: Request, problem: ApiProblem): Problem {
 export function sendProblem(req: Request, res: Response, problem: ApiProblem): void {
   for (const [name, value] of Object.entries(problem.headers)) res.setHeader(name, value);
   res.status(problem.status).type('application/problem+json').send(JSON.stringify(problemBody(req, problem)));
-}
-
-export function problem(code: ProblemCode, detail: string): ApiProblem {
-  return new ApiProblem(code, detail);
 }

@@ -12,6 +12,12 @@ export const ID_PREFIXES = {
   stimulus: 'stm',
   capture: 'cap',
   analysis: 'ana',
+  calibration: 'cal',
+  mask: 'msk',
+  webhookEndpoint: 'whe',
+  webhookDelivery: 'whd',
+  webhookEvent: 'evt',
+  webhookAttempt: 'wha',
 } as const;
 
 export type IdKind = keyof typeof ID_PREFIXES;

@@ -1,10 +1,16 @@
 import type { RouteDefinition } from '@server/http/define-route';
 import { apiKeyRoutes } from './api-keys/api-keys.routes';
 import { auditRoutes } from './audit/audit.routes';
+import { captureRoutes } from './captures/captures.routes';
+import { stimulusRoutes } from './stimuli/stimuli.routes';
 import { authRoutes } from './auth/auth.routes';
 import { healthRoutes } from './health/health.routes';
 import { memberRoutes } from './members/members.routes';
 import { permissionRoutes } from './permissions/permissions.routes';
+import { calibrationRoutes } from './calibrations/calibrations.routes';
+import { maskRoutes } from './masks/masks.routes';
+import { usageRoutes } from './usage/usage.routes';
+import { webhookRoutes } from './webhook-endpoints/webhooks.routes';
 
 /** Every /v1 endpoint, in documentation order. A new module adds its list here and nowhere else. */
 export const v1Routes: RouteDefinition[] = [
@@ -14,4 +20,10 @@ export const v1Routes: RouteDefinition[] = [
   ...permissionRoutes,
   ...apiKeyRoutes,
   ...auditRoutes,
+  ...stimulusRoutes,
+  ...captureRoutes,
+  ...calibrationRoutes,
+  ...maskRoutes,
+  ...usageRoutes,
+  ...webhookRoutes,
 ];

@@ -7,10 +7,9 @@ import { firstRadix4Stage, radix2Stage, radix4Stage } from './fft-stages';
  * Processing, ch. 9).
  *
  * Speed comes from: twiddles precomputed per stage and stored contiguously in the order the butterflies read
- * them (no strided table look-ups), the input permutation folded into the caller's load pass in a cache-friendly
- * order (bitReversal, permutationOrder), radix-4 stages (half the passes over memory of radix-2), and cache
- * blocking: all stages up to BLOCK_SIZE run block by block while the block is still in cache, before the
- * remaining large stages sweep the whole array.
+ * them (no strided table look-ups), the input permutation folded into the caller's load pass (bitReversal),
+ * radix-4 stages (half the passes over memory of radix-2), and cache blocking: all stages up to BLOCK_SIZE run
+ * block by block while the block is still in cache, before the remaining large stages sweep the whole array.
  *
  * A plan is pure memoisation of tables that depend only on the size: results never depend on the cache.
  */
@@ -18,12 +17,6 @@ export interface ComplexFftPlan {
   size: number;
   /** bitReversal[n] = index n with its log2(size) bits reversed: the load position of input sample n. */
   bitReversal: Uint32Array;
-  /**
-   * Every index 0..size−1 once, in an order where both n and bitReversal[n] move through few cache lines at a
-   * time (8 × 8 tiles: n = hi·2^(b−3) + mid·8 + lo, looping mid, hi, lo), so the permuting load pass does not
-   * miss the cache on every write.
-   */
-  permutationOrder: Uint32Array;
   /** Per radix-4 stage: [cos θ, −sin θ] for k = 0..L/4−1, θ = 2πk/L (W^2k and W^3k are formed from it). */
   stageTwiddles: Float64Array[];
   /** Butterfly span L of each radix-4 stage, ascending. */
@@ -47,19 +40,6 @@ function buildPlan(size: number): ComplexFftPlan {
   for (let n = 1; n < size; n++) {
     bitReversal[n] = (bitReversal[n >> 1] >> 1) | ((n & 1) << (bits - 1));
   }
-  const permutationOrder = new Uint32Array(size);
-  if (bits >= 6) {
-    const midCount = size >> 6;
-    let i = 0;
-    for (let mid = 0; mid < midCount; mid++) {
-      for (let hi = 0; hi < 8; hi++) {
-        const base = (hi << (bits - 3)) | (mid << 3);
-        for (let lo = 0; lo < 8; lo++) permutationOrder[i++] = base | lo;
-      }
-    }
-  } else {
-    for (let n = 0; n < size; n++) permutationOrder[n] = n;
-  }
   const leadingRadix2 = bits % 2 === 1;
   const stageSpans: number[] = [];
   const stageTwiddles: Float64Array[] = [];
@@ -74,7 +54,7 @@ function buildPlan(size: number): ComplexFftPlan {
     stageSpans.push(span);
     stageTwiddles.push(table);
   }
-  return { size, bitReversal, permutationOrder, stageTwiddles, stageSpans, leadingRadix2 };
+  return { size, bitReversal, stageTwiddles, stageSpans, leadingRadix2 };
 }
 
 /** Cached plan for a power-of-two `size` ≥ 2 (the caller validates the size). */

@@ -69,12 +69,9 @@ export function realFft(signal: ArrayLike<number>, fftSize: number): Spectrum {
   // The half-size complex transform runs in bins 0..half−1 of the output arrays; bin `half` is set at the end.
   const re = new Float64Array(half + 1);
   const im = new Float64Array(half + 1);
-  const order = plan.permutationOrder;
   const length = signal.length;
   const pairs = length >> 1;
-  for (let i = 0; i < half; i++) {
-    const n = order[i];
-    if (n >= pairs) continue; // zero padding: already 0
+  for (let n = 0; n < pairs; n++) {
     const target = reverse[n];
     re[target] = signal[2 * n];
     im[target] = signal[2 * n + 1];
@@ -132,29 +129,35 @@ export function inverseRealFft(spectrum: Spectrum, fftSize: number): Float64Arra
   const out = new Float64Array(fftSize);
   const zr = out.subarray(0, half);
   const zi = new Float64Array(half);
-  // Z[k] = E + j·O with E = (X[k] + conj X[half−k])/2 and O = (X[k] − conj X[half−k])·e^(+j2πk/N)/2; the inverse
-  // runs as conj(FFT(conj Z))/half, so conj Z is stored, at bit-reversed positions, in the cache-friendly order.
-  const order = plan.permutationOrder;
-  const quarter = half / 2;
-  for (let i = 0; i < half; i++) {
-    const k = order[i];
-    const m = half - k; // k = 0 pairs with bin `half`
+  // Z[k] = E + j·O with E = (X[k] + conj X[half−k])/2, O = (X[k] − conj X[half−k])·e^(+j2πk/N)/2, and
+  // Z[half−k] = conj E + j·conj O. The inverse runs as conj(FFT(conj Z))/half, so conj Z is stored, at
+  // bit-reversed positions.
+  {
+    const a = xr[0];
+    const b = xr[half];
+    zr[0] = (a + b) / 2;
+    zi[0] = -(a - b) / 2;
+  }
+  for (let k = 1; k <= half / 2; k++) {
+    const m = half - k;
     const ar = xr[k];
-    const ai = k === 0 ? 0 : xi[k];
+    const ai = xi[k];
     const br = xr[m];
-    const bi = k === 0 ? 0 : xi[m];
+    const bi = xi[m];
     const er = (ar + br) / 2;
     const ei = (ai - bi) / 2;
     const dr = (ar - br) / 2;
     const di = (ai + bi) / 2;
-    // e^(+j2πk/N) for k ≤ N/4 from the table; above, cos(π − θ) = −cos θ and sin(π − θ) = sin θ with θ = 2π(half−k)/N.
-    const c = k <= quarter ? table[2 * k] : -table[2 * m];
-    const s = k <= quarter ? table[2 * k + 1] : table[2 * m + 1];
+    const c = table[2 * k];
+    const s = table[2 * k + 1];
     const or = dr * c - di * s;
     const oi = dr * s + di * c;
-    const target = reverse[k];
-    zr[target] = er - oi;
-    zi[target] = -(ei + or);
+    const targetK = reverse[k];
+    const targetM = reverse[m];
+    zr[targetK] = er - oi;
+    zi[targetK] = -(ei + or);
+    zr[targetM] = er + oi;
+    zi[targetM] = -(or - ei);
   }
   complexFftBitReversedInput(plan, zr, zi);
   // Descending n writes out[2n], out[2n+1] ≥ n, so no real part still to be read is overwritten.

@@ -124,6 +124,7 @@ describe('API key lifecycle', () => {
 
   it('writes audit events for creation and revocation', async () => {
     const { apiKey, secret } = await createApiKey(owner.agent, ['keys:manage', 'audit:read'], { name: 'Audit probe' });
+    clock.advanceSeconds(1); // distinct times, so newest-first order is defined
     await api().post(`/v1/api-keys/${apiKey.id}/revoke`).set(bearer(secret)); // a key may revoke itself
     const events = await owner.agent.get('/v1/audit-events').query({ objectId: apiKey.id });
     expect(events.status).toBe(200);

@@ -54,6 +54,13 @@ describe('security headers', () => {
     const response = await request(httpsApp).get('/v1/health');
     expect(response.headers['strict-transport-security']).toMatch(/max-age=\d+/);
     expect(response.headers['content-security-policy']).toContain('upgrade-insecure-requests');
+
+    const signUp = await request(httpsApp)
+      .post('/v1/auth/sign-up')
+      .set('Origin', 'https://sweepline.example')
+      .send({ email: 'secure@kestrelbay.example', password: 'kb-h40-headphone-pass', displayName: 'Sam', organisationName: 'KB' });
+    expect(signUp.status).toBe(201);
+    expect(([] as string[]).concat(signUp.headers['set-cookie']).join(';')).toMatch(/swl_session=[^;]+;.*Secure/i);
   });
 
   it('echoes a caller\'s request id when it looks like one and makes its own otherwise', async () => {

@@ -11,6 +11,8 @@ const paths = {
   copy: 'M7 7h9.5v9.5H7zM13 7V3.5H3.5V13H7',
   check: 'M4 10.5 8 14.5 16 5.5',
   plus: 'M10 4v12M4 10h12',
+  analyses: 'M3.5 4.5h13M3.5 9h6M3.5 13.5h6M3.5 16.5h4M11.5 16l2-5 1.5 3 1.5-2.5',
+  compare: 'M3 16.5h14M3.5 12c3-6 5-6 7-2s4 2.5 6-4M3.5 9c3 2 5 4 7 2.5s4-5 6-5.5',
 } as const;
 
 export type IconName = keyof typeof paths;

@@ -23,3 +23,18 @@ export function exitOnBootstrapError(error) {
   }
   process.exit(1);
 }
+
+/**
+ * `kill <pid of npm>` ends npm but not the script it ran; notice that our parent went away (we were
+ * re-parented) and shut down as if signalled, so no server or database is left behind.
+ */
+export function stopWhenOrphaned(stop) {
+  const parent = process.ppid;
+  const timer = setInterval(() => {
+    if (process.ppid !== parent) {
+      clearInterval(timer);
+      stop();
+    }
+  }, 1000);
+  timer.unref();
+}

@@ -31,7 +31,7 @@ export interface Outbox {
 const DEFAULT_WAIT_MS = 5_000;
 
 /** In-memory, bounded: the oldest messages go first once `maxMessages` is reached. */
-export function createOutbox(maxMessages = 500): Outbox {
+export function createOutbox(maxMessages = 200): Outbox {
   let messages: CaughtEmail[] = [];
   let nextId = 1;
   const listeners = new Set<EmailListener>();

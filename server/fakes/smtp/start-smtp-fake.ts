@@ -9,7 +9,7 @@ export interface SmtpFakeOptions {
   port?: number;
   /** Loopback only; anything else is refused. */
   host?: string;
-  /** Larger messages are refused with 552; default 10 MB. */
+  /** Larger messages are refused with 552; default 1 MiB (our messages are a few kB). */
   maxMessageBytes?: number;
   /** Outbox capacity; the oldest messages are dropped first. */
   maxStoredMessages?: number;
@@ -24,7 +24,7 @@ export interface SmtpFake {
   stop(): Promise<void>;
 }
 
-const DEFAULT_MAX_MESSAGE_BYTES = 10 * 1024 * 1024;
+const DEFAULT_MAX_MESSAGE_BYTES = 1024 * 1024;
 const CLOSE_TIMEOUT_MS = 1_000;
 const MAX_CLIENTS = 20;
 

@@ -7,7 +7,6 @@ import {
   createdApiKeySchema,
   currentApiKeySchema,
 } from '@shared/schemas/api-keys';
-import { idempotencyHeadersSchema } from '@shared/schemas/common';
 import { defineRoute } from '@server/http/define-route';
 import { createApiKey, describeCallingKey, listApiKeysPage, revokeApiKey } from './api-keys.service';
 
@@ -47,11 +46,11 @@ export const apiKeyRoutes = [
     summary: 'Create an API key',
     description:
       'Creates a key with the given scopes (none beyond your own permissions) and optional expiry. The response ' +
-      'is the only time the secret is shown: only its SHA-256 hash is stored. An `Idempotency-Key` header is ' +
-      'accepted and currently ignored.',
+      'is the only time the secret is shown: only its SHA-256 hash is stored.',
     tags: ['API keys'],
     permission: 'keys:manage',
-    request: { body: createApiKeyRequestSchema, headers: idempotencyHeadersSchema },
+    idempotency: 'optional',
+    request: { body: createApiKeyRequestSchema },
     responses: { 201: { description: 'The key and its secret, shown once.', schema: createdApiKeySchema } },
     problems: ['scope_not_held'],
     handler: async ({ deps, principal, body }) => ({ status: 201, body: await createApiKey(deps, principal, body) }),

@@ -1,5 +1,5 @@
 import type { ApiKey, CreateApiKeyRequest, CreatedApiKey, CurrentApiKey } from '@shared/schemas/api-keys';
-import type { Page, } from '@shared/schemas/pagination';
+import type { Page } from '@shared/schemas/pagination';
 import type { AppDeps } from '@server/deps';
 import { newId } from '@server/lib/ids';
 import { ApiProblem, invalidField, notFound } from '@server/http/api-problem';

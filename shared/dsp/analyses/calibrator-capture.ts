@@ -3,7 +3,7 @@ import { ENGINE_VERSION } from '../result/engine-version';
 import type { AnalysisResult } from '../result/types';
 import type { EngineWarning } from '../result/warnings';
 import { rejectUnknownKeys, requireNumberInRange, requireObject } from '../stimuli/parameter-checks';
-import { channelWarnings, requireCapture, requireFiniteSamples, type CaptureInput } from './capture-checks';
+import { channelWarnings, requireCapture, type CaptureInput } from './capture-checks';
 import { resolveChannelIndex } from './curve-output-options';
 
 /**
@@ -39,7 +39,6 @@ export function analyzeCalibratorCapture(capture: CaptureInput, options: Calibra
   const statedFrequencyHz = requireNumberInRange(raw.statedFrequencyHz ?? 1000, 'options.statedFrequencyHz', 1, input.sampleRateHz / 2, 'Hz');
   const toneOptions = raw.tone === undefined ? {} : (requireObject(raw.tone, 'options.tone') as CalibratorToneOptions);
   const samples = input.channels[channel];
-  requireFiniteSamples(samples, `capture.channels[${channel}]`);
   const warnings: EngineWarning[] = channelWarnings(samples, channel, 'microphone');
   const { warnings: toneWarnings, ...tone } = analyzeCalibratorTone(samples, input.sampleRateHz, { statedLevelDbSpl, statedFrequencyHz }, toneOptions);
   warnings.push(...toneWarnings);

@@ -49,9 +49,26 @@ export function requireFiniteSamples(samples: Float64Array, field: string): void
   }
 }
 
-/** Clipping and DC-offset warnings of one channel; `role` names it in the messages ("measurement", "reference"). */
+function statsOf(samples: Float64Array, channelIndex: number) {
+  try {
+    return channelStats(samples);
+  } catch (error) {
+    if (error instanceof EngineError && error.code === 'signal_non_finite_sample') {
+      throw new EngineError('capture_sample_not_finite', `capture.channels[${channelIndex}]: ${error.message}`, {
+        field: `capture.channels[${channelIndex}]`,
+        details: error.details,
+      });
+    }
+    throw error;
+  }
+}
+
+/**
+ * Clipping and DC-offset warnings of one channel; `role` names it in the messages ("measurement", "reference").
+ * Also the finiteness check: a NaN or infinite sample is refused with the channel's field path.
+ */
 export function channelWarnings(samples: Float64Array, channelIndex: number, role: string): EngineWarning[] {
-  const stats = channelStats(samples);
+  const stats = statsOf(samples, channelIndex);
   const warnings: EngineWarning[] = [];
   if (stats.clippedSampleCount > 0 || stats.flatTopRunCount > 0) {
     warnings.push(

@@ -39,7 +39,7 @@ function foldWarnings(perStep: { step: SteppedSineStep; warnings: EngineWarning[
     }
   }
   return [...byCode.values()].map(({ first, steps }) =>
-    warning(first.code, `${steps.length} step(s) (${steps.slice(0, 8).join(', ')}${steps.length > 8 ? ', …' : ''} Hz): ${first.message}`, {
+    warning(first.code, `${steps.length} step(s) (${steps.slice(0, 8).join(', ')}${steps.length > 8 ? ', …' : ''} Hz); at the first of them: ${first.message}`, {
       ...first.details,
       stepCount: steps.length,
       steps: steps.join(','),
@@ -103,7 +103,7 @@ export function analyzeSteppedDistortion(
   const perStep = steps.map((step) => {
     const analysis = analyzeToneRecord(record(y, step), plan.sampleRateHz, toneOptions(step));
     const figures = toneFigures(analysis, options.common.thdHeadline);
-    const stepWarnings = toneWarnings(analysis, { minSnrDb: options.minSnrDb, label: 'step' });
+    const stepWarnings = toneWarnings(analysis, { minSnrDb: options.minSnrDb, label: '' });
     let nearChainResidual = false;
     if (loopback) {
       const chain = toneFigures(analyzeToneRecord(record(loopback, step), plan.sampleRateHz, toneOptions(step)), options.common.thdHeadline);

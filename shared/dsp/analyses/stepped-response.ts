@@ -5,7 +5,7 @@ import { coherentBin, recordEnergy } from '../response/coherent-bin';
 import { EngineError } from '../errors';
 import { designSteppedSine, type SteppedSineParameters, type SteppedSinePlan } from '../stimuli/stepped-sine';
 import type { BandLimitsResult, ThirdOctaveBandValue, ToleranceRangeResult } from '../curves';
-import { channelWarnings, requireCapture, requireFiniteSamples, type CaptureInput } from './capture-checks';
+import { channelWarnings, requireCapture, type CaptureInput } from './capture-checks';
 import { deriveCurveOutputs } from './derived-curve-outputs';
 import { magnitudeScale } from './magnitude-reference';
 import { resolveSteppedResponseOptions, type SteppedResponseOptions } from './stepped-response-options';
@@ -69,8 +69,6 @@ export function analyzeSteppedResponse(
   }
   const y = input.channels[resolved.measurementChannel];
   const x = resolved.referenceChannel === null ? null : input.channels[resolved.referenceChannel];
-  requireFiniteSamples(y, `capture.channels[${resolved.measurementChannel}]`);
-  if (x) requireFiniteSamples(x, `capture.channels[${resolved.referenceChannel}]`);
   const warnings: EngineWarning[] = channelWarnings(y, resolved.measurementChannel, 'measurement');
   if (x) warnings.push(...channelWarnings(x, resolved.referenceChannel as number, 'reference'));
 

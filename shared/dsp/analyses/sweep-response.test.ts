@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import { levelAtFrequencyDb } from '../curves';
 import { EngineError } from '../errors';
 import { designSynchronizedSweep, renderSweep, type SweepParameters } from '../stimuli/sweep';
 import { analyzeSweepResponse } from './sweep-response';
@@ -54,6 +55,8 @@ describe('sweep frequency response', () => {
     const result = analyzeSweepResponse(capture(cascade(sweep, filters)), params, { grid: { pointsPerOctave: 48, startHz: 40, stopHz: 12000 } });
     expect(worstErrorDb(result, filters, 100, 10000)).toBeLessThan(0.1);
     expect(biquadResponse([butterworthLowPass2(5000, fs)], 5000, fs).magnitudeDb).toBeCloseTo(-3.0103, 4);
+    const curve = { frequencyHz: Float64Array.from(result.curves.frequencyHz), magnitudeDb: Float64Array.from(result.curves.magnitudeDb) };
+    expect(levelAtFrequencyDb(curve, 5000)).toBeCloseTo(-3.0103 + biquadResponse([butterworthHighPass2(55, fs)], 5000, fs).magnitudeDb, 1);
     const upper = result.figures.bandLimits?.limits.find((limit) => limit.dropDb === 3)?.upper;
     expect(upper?.status).toBe('found');
     // the −3 dB point re 1 kHz: the high-pass adds a hair at 1 kHz, so the crossing lies within 1 % of fc
@@ -84,6 +87,9 @@ describe('sweep frequency response', () => {
     result.curves.frequencyHz.forEach((f, i) => expect(result.curves.belowLowestValidFrequency[i]).toBe(f < 200));
     expect(result.warnings.map((w) => w.code)).toContain('gate_limits_low_frequency');
     expect(result.conventions.gate).toMatch(/time gate/);
+    const tukey = analyzeSweepResponse(capture(sweep), params, { gate: { lengthSeconds: 0.01, preRollSeconds: 0.003, shape: 'tukey', taperFraction: 0.2 } });
+    expect(tukey.figures.lowestValidFrequencyHz).toBeCloseTo(100, 9);
+    expect(tukey.conventions.gate).toMatch(/Tukey/);
   });
 
   it('gives the group delay of a pure delay and of a 1st-order low-pass', () => {
@@ -151,6 +157,14 @@ describe('sweep frequency response', () => {
     expect(analyzeSweepResponse(capture(clipped.map((v) => v / 0.3)), params).warnings.map((w) => w.code)).toContain('clipping');
 
     // White noise of RMS 0.1 against a −6 dBFS sweep leaves < 20 dB SNR at high frequencies (pink sweep, white noise).
+    const offset = analyzeSweepResponse(capture(sweep.map((v) => v + 0.01)), params);
+    expect(offset.warnings.map((w) => w.code)).toContain('dc_offset');
+    const narrowParams = { ...params, startHz: 100, stopHz: 10000 };
+    const narrowSweep = renderSweep(designSynchronizedSweep(narrowParams));
+    const wide = analyzeSweepResponse(capture(narrowSweep), narrowParams, { grid: { startHz: 20, stopHz: 20000 } });
+    expect(wide.warnings.map((w) => w.code)).toContain('response_outside_sweep_band');
+    expect(wide.curves.outsideSweepBand[0]).toBe(true);
+
     const noisy = analyzeSweepResponse(capture(addSignals(sweep, whiteNoise(sweep.length, 0.1, 11))), params);
     expect(noisy.warnings.map((w) => w.code)).toContain('low_snr');
     const clean = analyzeSweepResponse(capture(addSignals(sweep, whiteNoise(sweep.length, 1e-4, 11))), params);

@@ -7,7 +7,7 @@ import { warning, type EngineWarning } from '../result/warnings';
 import { speedOfSoundMetresPerSecond } from '@shared/units/acoustics';
 import { dbfsFromRms } from '@shared/units/levels';
 import type { SweepDesign, SweepParameters } from '../stimuli/sweep';
-import { channelWarnings, requireCapture, requireFiniteSamples, type CaptureInput } from './capture-checks';
+import { channelWarnings, requireCapture, type CaptureInput } from './capture-checks';
 import { deriveCurveOutputs } from './derived-curve-outputs';
 import { magnitudeScale } from './magnitude-reference';
 import { resolveSweepDesignForCapture, sweepCaptureWarnings } from './sweep-stimulus';
@@ -40,8 +40,6 @@ export function analyzeSweepResponse(
   const fs = design.sampleRateHz;
   const measurement = input.channels[resolved.measurementChannel];
   const reference = resolved.referenceChannel === null ? null : input.channels[resolved.referenceChannel];
-  requireFiniteSamples(measurement, `capture.channels[${resolved.measurementChannel}]`);
-  if (reference) requireFiniteSamples(reference, `capture.channels[${resolved.referenceChannel}]`);
 
   const warnings: EngineWarning[] = [...designWarnings, ...channelWarnings(measurement, resolved.measurementChannel, 'measurement')];
   if (reference) warnings.push(...channelWarnings(reference, resolved.referenceChannel as number, 'reference'));
@@ -101,7 +99,7 @@ export function analyzeSweepResponse(
   }
   const noise = estimateImpulseNoise(ir, peak, window.preRollSamples);
   const driveAmplitude = reference ? Math.pow(10, (referenceChannelLevelDbfs as number) / 20) : design.amplitude;
-  const snr = sweepSnr(measurement, design, Math.round(resolved.captureOffsetSeconds * fs), driveAmplitude, ir, window, spectrum, grid.gridHz, resolved.lowSnrThresholdDb);
+  const snr = sweepSnr(measurement, design, Math.round(resolved.captureOffsetSeconds * fs), driveAmplitude, ir, spectrum, grid.gridHz, resolved.lowSnrThresholdDb);
   warnings.push(...snr.warnings);
   const temperatureCelsius = resolved.conditions.temperatureCelsius;
   const speedOfSound = speedOfSoundMetresPerSecond(temperatureCelsius);

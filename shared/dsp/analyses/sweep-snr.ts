@@ -1,7 +1,6 @@
 import { smoothSpectrum } from '../curves';
 import { deconvolvedNoisePower } from '../response/capture-noise';
 import type { CircularImpulseResponse } from '../response/deconvolve';
-import { windowWeights, type TimeWindow } from '../response/time-window';
 import type { WindowedSpectrum } from '../response/windowed-spectrum';
 import { warning, type EngineWarning } from '../result/warnings';
 import type { SweepDesign } from '../stimuli/sweep';
@@ -26,7 +25,6 @@ export function sweepSnr(
   captureOffsetSamples: number,
   driveAmplitude: number,
   ir: CircularImpulseResponse,
-  window: TimeWindow,
   spectrum: WindowedSpectrum,
   gridHz: Float64Array,
   thresholdDb: number,
@@ -36,17 +34,16 @@ export function sweepSnr(
   if (noiseLength < MINIMUM_NOISE_SECONDS * fs || !(driveAmplitude > 0)) {
     return { snrDb: null, description: 'not estimated (the stimulus has less than 20 ms of leading silence)', warnings: [] };
   }
-  let windowSumOfSquares = 0;
-  for (const w of windowWeights(window)) windowSumOfSquares += w * w;
   const power = deconvolvedNoisePower(measurement.subarray(captureOffsetSamples, captureOffsetSamples + noiseLength), spectrum.fftSize, {
     sampleRateHz: fs,
     rateConstantSeconds: design.rateConstantSeconds,
     driveAmplitude,
     usedCaptureSampleCount: ir.usedCaptureSampleCount,
     deconvolutionFftSize: ir.fftSize,
-    windowSumOfSquares,
+    windowSumOfSquares: spectrum.windowSumOfSquares,
   });
-  const noise = { re: power.map(Math.sqrt), im: new Float64Array(power.length), binSpacingHz: spectrum.binSpacingHz };
+  for (let k = 0; k < power.length; k++) power[k] = Math.sqrt(power[k]);
+  const noise = { re: power, im: new Float64Array(power.length), binSpacingHz: spectrum.binSpacingHz };
   const signalDb = smoothSpectrum(spectrum, gridHz, SNR_SMOOTHING).magnitudeDb;
   const noiseDb = smoothSpectrum(noise, gridHz, SNR_SMOOTHING).magnitudeDb;
   const snrDb = signalDb.map((level, i) => Math.min(level - noiseDb[i], 400));

@@ -59,20 +59,21 @@ export function toneFigures(analysis: ToneRecordAnalysis, headline: ThdForm): To
 
 export interface ToneWarningLimits {
   minSnrDb: number;
-  /** Label for the messages, e.g. "tone" or "step 12 (1000 Hz)". */
+  /** Prefix of the messages, e.g. "tone"; empty for none. */
   label: string;
 }
 
 /** The warnings one analysed record raises (clipping is checked on the capture by the caller). */
 export function toneWarnings(analysis: ToneRecordAnalysis, limits: ToneWarningLimits): EngineWarning[] {
   const warnings: EngineWarning[] = [];
+  const prefix = limits.label ? `${limits.label}: ` : '';
   const h = analysis.spectrum.lobeHalfWidthBins;
   const minimumCycles = analysis.spectrum.method === 'coherent' ? 2 : 2 * h + 2;
   if (analysis.cyclesInRecord < minimumCycles) {
     warnings.push(
       warning(
         'too_few_cycles',
-        `${limits.label}: ${analysis.cyclesInRecord.toFixed(1)} cycles in the record; the ${analysis.spectrum.windowName} analysis needs at least ${minimumCycles} to keep the fundamental's lobe clear of DC.`,
+        `${prefix}${analysis.cyclesInRecord.toFixed(1)} cycles in the record; the ${analysis.spectrum.windowName} analysis needs at least ${minimumCycles} to keep the fundamental's lobe clear of DC.`,
         { cycles: analysis.cyclesInRecord, minimumCycles },
       ),
     );
@@ -81,7 +82,7 @@ export function toneWarnings(analysis: ToneRecordAnalysis, limits: ToneWarningLi
     warnings.push(
       warning(
         'harmonics_beyond_band_dropped',
-        `${limits.label}: orders ${analysis.droppedOrders.join(', ')} lie above the band limit ${analysis.bandLimitHz} Hz and were left out of THD.`,
+        `${prefix}orders ${analysis.droppedOrders.join(', ')} lie above the band limit ${analysis.bandLimitHz} Hz and were left out of THD.`,
         { droppedOrders: analysis.droppedOrders.join(','), bandLimitHz: analysis.bandLimitHz },
       ),
     );
@@ -91,14 +92,14 @@ export function toneWarnings(analysis: ToneRecordAnalysis, limits: ToneWarningLi
     warnings.push(
       warning(
         'harmonic_below_noise_floor',
-        `${limits.label}: orders ${bounded.join(', ')} are not clearly above the noise floor and are reported as upper bounds; THD is an upper bound.`,
+        `${prefix}orders ${bounded.join(', ')} are not clearly above the noise floor and are reported as upper bounds; THD is an upper bound.`,
         { orders: bounded.join(',') },
       ),
     );
   }
   if (analysis.signalToNoiseDb < limits.minSnrDb) {
     warnings.push(
-      warning('low_snr', `${limits.label}: the fundamental is only ${analysis.signalToNoiseDb.toFixed(1)} dB above the in-band noise.`, {
+      warning('low_snr', `${prefix}the fundamental is only ${analysis.signalToNoiseDb.toFixed(1)} dB above the in-band noise.`, {
         signalToNoiseDb: analysis.signalToNoiseDb,
         minSnrDb: limits.minSnrDb,
       }),

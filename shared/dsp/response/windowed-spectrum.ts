@@ -21,6 +21,8 @@ export interface WindowedSpectrum {
   /** The windowed IR itself, first sample at t = startSeconds. */
   windowedImpulse: Float64Array;
   startSeconds: number;
+  /** Σw² of the window weights (for noise scaling). */
+  windowSumOfSquares: number;
 }
 
 export const MINIMUM_BIN_SPACING_HZ = 1;
@@ -33,7 +35,11 @@ export function windowedExcessSpectrum(
   const start = peak.sampleOffset - window.preRollSamples;
   const windowed = circularSlice(ir.samples, start, window.totalSamples);
   const weights = windowWeights(window);
-  for (let n = 0; n < windowed.length; n++) windowed[n] *= weights[n];
+  let windowSumOfSquares = 0;
+  for (let n = 0; n < windowed.length; n++) {
+    windowed[n] *= weights[n];
+    windowSumOfSquares += weights[n] * weights[n];
+  }
   const fftSize = Math.max(nextPowerOfTwo(window.totalSamples), nextPowerOfTwo(Math.ceil(ir.sampleRateHz / MINIMUM_BIN_SPACING_HZ)));
   const spectrum = realFft(windowed, fftSize);
   const shiftSamples = window.preRollSamples + (peak.delaySamples - peak.sampleOffset);
@@ -55,5 +61,6 @@ export function windowedExcessSpectrum(
     fftSize,
     windowedImpulse: windowed,
     startSeconds: start / ir.sampleRateHz,
+    windowSumOfSquares,
   };
 }

@@ -9,6 +9,7 @@ import {
   optionalObject,
   optionalString,
   requiredString,
+  requireHttpUrl,
   type Params,
 } from './params';
 import { missingObject, ProviderRequestError } from './provider-request-error';
@@ -47,16 +48,6 @@ function readLineItems(state: ProviderState, params: Params): FakeCheckoutLineIt
     }
     return { price: priceId, quantity: optionalInteger(line, 'quantity', { min: 1, max: 999 }) ?? 1 };
   });
-}
-
-function requireHttpUrl(value: string, param: string): string {
-  try {
-    const url = new URL(value.replace('{CHECKOUT_SESSION_ID}', 'placeholder'));
-    if (url.protocol === 'http:' || url.protocol === 'https:') return value;
-  } catch {
-    // fall through to the refusal
-  }
-  throw badRequest(`Not a valid URL: ${param}`, param);
 }
 
 export function checkoutRoutes(state: ProviderState): Router {

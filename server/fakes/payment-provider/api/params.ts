@@ -81,3 +81,14 @@ export function optionalMetadata(params: Params, name: string): Record<string, s
 export function listOptions(params: Params): { limit?: number; startingAfter?: string } {
   return { limit: optionalInteger(params, 'limit', { min: 1, max: 100 }), startingAfter: optionalString(params, 'starting_after') };
 }
+
+/** Only http(s) addresses end up as links on the hosted pages. `{CHECKOUT_SESSION_ID}` may appear in them. */
+export function requireHttpUrl(value: string, param: string): string {
+  try {
+    const url = new URL(value.replace('{CHECKOUT_SESSION_ID}', 'placeholder'));
+    if (url.protocol === 'http:' || url.protocol === 'https:') return value;
+  } catch {
+    // refused below
+  }
+  throw invalid(param, `Not a valid URL: ${param}`, 'url_invalid');
+}

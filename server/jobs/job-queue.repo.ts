@@ -1,0 +1,139 @@
+import { and, asc, eq, inArray, isNotNull, lt, or, sql } from 'drizzle-orm';
+import type { Database, Executor } from '@server/db/client';
+import { analyses } from '@server/db/tables';
+
+export interface ClaimedJob {
+  id: string;
+  organisationId: string;
+  attempts: number;
+}
+
+export interface ClaimOptions {
+  owner: string;
+  now: Date;
+  leaseSeconds: number;
+  maxAttempts: number;
+  /** Told about each job failed for running out of attempts (to emit its event). */
+  onExhausted?: (job: { id: string; organisationId: string; attempts: number }) => void;
+}
+
+const claimable = (now: Date) =>
+  or(eq(analyses.status, 'queued'), and(eq(analyses.status, 'running'), isNotNull(analyses.leaseExpiresAt), lt(analyses.leaseExpiresAt, now)));
+
+/**
+ * Claims the oldest claimable job: queued, or running with an expired lease (its worker died). The row lock is
+ * taken with FOR UPDATE SKIP LOCKED inside a short transaction, so concurrent workers in any process each get a
+ * different row and never wait on each other. A job already claimed `maxAttempts` times is failed instead.
+ * Returns null when nothing is claimable.
+ */
+export async function claimNextJob(db: Database, options: ClaimOptions): Promise<ClaimedJob | null> {
+  for (;;) {
+    const outcome = await db.transaction(async (tx) => {
+      const [row] = await tx
+        .select({ id: analyses.id, organisationId: analyses.organisationId, attempts: analyses.attempts, status: analyses.status })
+        .from(analyses)
+        .where(claimable(options.now))
+        .orderBy(asc(analyses.createdAt))
+        .limit(1)
+        .for('update', { skipLocked: true });
+      if (!row) return { kind: 'none' as const };
+      if (row.attempts >= options.maxAttempts) {
+        await tx
+          .update(analyses)
+          .set({
+            status: 'failed',
+            progress: 1,
+            leaseOwner: null,
+            leaseExpiresAt: null,
+            finishedAt: options.now,
+            updatedAt: options.now,
+            error: {
+              code: 'job_attempts_exhausted',
+              detail: `The analysis was started ${row.attempts} time(s) and its worker stopped each time before finishing (lease expired); it is not retried again.`,
+            },
+          })
+          .where(eq(analyses.id, row.id));
+        return { kind: 'exhausted' as const, id: row.id, organisationId: row.organisationId, attempts: row.attempts };
+      }
+      await tx
+        .update(analyses)
+        .set({
+          status: 'running',
+          attempts: row.attempts + 1,
+          leaseOwner: options.owner,
+          leaseExpiresAt: new Date(options.now.getTime() + options.leaseSeconds * 1000),
+          startedAt: options.now,
+          updatedAt: options.now,
+          progress: 0.1,
+        })
+        .where(eq(analyses.id, row.id));
+      return { kind: 'claimed' as const, job: { id: row.id, organisationId: row.organisationId, attempts: row.attempts + 1 } };
+    });
+    if (outcome.kind === 'none') return null;
+    if (outcome.kind === 'claimed') return outcome.job;
+    options.onExhausted?.(outcome);
+  }
+}
+
+const heldBy = (jobId: string, owner: string) => and(eq(analyses.id, jobId), eq(analyses.leaseOwner, owner), eq(analyses.status, 'running'));
+
+/** Extends the lease; false when the job is no longer ours (canceled, or claimed by another after expiry). */
+export async function renewLease(db: Executor, jobId: string, owner: string, until: Date, now: Date): Promise<boolean> {
+  const [result] = await db.update(analyses).set({ leaseExpiresAt: until, updatedAt: now }).where(heldBy(jobId, owner));
+  return result.affectedRows === 1;
+}
+
+export interface FinishJob {
+  status: 'succeeded' | 'failed';
+  resultJson?: string | null;
+  error?: Record<string, unknown> | null;
+  verdict?: string | null;
+  calibration?: Record<string, unknown> | null;
+  engineVersion?: string | null;
+  now: Date;
+}
+
+/** Writes the outcome if the job is still ours; false when it was canceled or lost meanwhile (result discarded). */
+export async function finishJob(db: Executor, jobId: string, owner: string, outcome: FinishJob): Promise<boolean> {
+  const [result] = await db
+    .update(analyses)
+    .set({
+      status: outcome.status,
+      progress: 1,
+      resultJson: outcome.resultJson ?? null,
+      error: outcome.error ?? null,
+      verdict: outcome.verdict ?? null,
+      calibration: outcome.calibration ?? null,
+      engineVersion: outcome.engineVersion ?? null,
+      leaseOwner: null,
+      leaseExpiresAt: null,
+      finishedAt: outcome.now,
+      updatedAt: outcome.now,
+    })
+    .where(heldBy(jobId, owner));
+  return result.affectedRows === 1;
+}
+
+/** Puts a job back in the queue without counting the attempt (graceful shutdown). */
+export async function releaseJob(db: Executor, jobId: string, owner: string, now: Date): Promise<boolean> {
+  const [result] = await db
+    .update(analyses)
+    .set({ status: 'queued', leaseOwner: null, leaseExpiresAt: null, progress: 0, updatedAt: now, attempts: sql`GREATEST(${analyses.attempts} - 1, 0)` })
+    .where(heldBy(jobId, owner));
+  return result.affectedRows === 1;
+}
+
+/** Puts a job back after a transient failure, counting the attempt. */
+export async function requeueJob(db: Executor, jobId: string, owner: string, now: Date): Promise<boolean> {
+  const [result] = await db
+    .update(analyses)
+    .set({ status: 'queued', leaseOwner: null, leaseExpiresAt: null, progress: 0, updatedAt: now })
+    .where(heldBy(jobId, owner));
+  return result.affectedRows === 1;
+}
+
+export async function jobStatuses(db: Executor, jobIds: string[]): Promise<Map<string, string>> {
+  if (jobIds.length === 0) return new Map();
+  const rows = await db.select({ id: analyses.id, status: analyses.status }).from(analyses).where(inArray(analyses.id, jobIds));
+  return new Map(rows.map((row) => [row.id, row.status]));
+}

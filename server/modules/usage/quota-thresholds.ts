@@ -1,0 +1,66 @@
+import type { AppDeps } from '@server/deps';
+import type { Executor } from '@server/db/client';
+import { emitEvent } from '@server/modules/webhook-endpoints/webhooks.service';
+import type { QuotaName } from './quota-problem';
+import { insertThresholdNotice } from './usage.repo';
+
+/** Thresholds that raise a quota.threshold event, once per period each. */
+export const QUOTA_THRESHOLD_PERCENTS = [80, 100] as const;
+
+export interface QuotaThresholdNotice {
+  organisationId: string;
+  quota: QuotaName;
+  thresholdPercent: number;
+  used: number;
+  limit: number;
+  periodStart: Date;
+  periodEndsAt: Date;
+}
+
+export type QuotaThresholdListener = (notice: QuotaThresholdNotice) => void | Promise<void>;
+const listeners = new Set<QuotaThresholdListener>();
+
+/**
+ * Hook for other channels (e-mail to the organisation's admins): called once per threshold and period, after the
+ * webhook event is written. When the reserve runs inside a caller's transaction, this runs before that commits.
+ * Returns an unsubscribe function.
+ */
+export function onQuotaThreshold(listener: QuotaThresholdListener): () => void {
+  listeners.add(listener);
+  return () => listeners.delete(listener);
+}
+
+/** Records and announces every threshold the new total reached for the first time this period. */
+export async function noticeThresholds(
+  deps: AppDeps,
+  db: Executor,
+  organisationId: string,
+  usage: { quota: QuotaName; used: number; limit: number; periodStart: Date; periodEndsAt: Date },
+): Promise<void> {
+  if (!(usage.limit > 0)) return;
+  for (const thresholdPercent of QUOTA_THRESHOLD_PERCENTS) {
+    if (usage.used * 100 < thresholdPercent * usage.limit) continue;
+    const first = await insertThresholdNotice(db, organisationId, {
+      periodStart: usage.periodStart,
+      quota: usage.quota,
+      thresholdPercent,
+      createdAt: deps.clock.now(),
+    });
+    if (!first) continue;
+    await emitEvent(
+      deps,
+      organisationId,
+      'quota.threshold',
+      { quota: usage.quota, thresholdPercent, used: usage.used, limit: usage.limit, periodEndsAt: usage.periodEndsAt.toISOString() },
+      db,
+    );
+    const notice: QuotaThresholdNotice = { organisationId, thresholdPercent, ...usage };
+    for (const listener of listeners) {
+      try {
+        await listener(notice);
+      } catch (error) {
+        deps.logger.error({ err: error, organisationId }, 'quota threshold listener failed');
+      }
+    }
+  }
+}
