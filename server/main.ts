@@ -13,6 +13,8 @@ import { ensureConsoleBuilt } from './web/console-build';
 import { startIdempotencyPruner } from './http/idempotency';
 import { startRateLimitPruner } from './http/rate-limit';
 import { startWebhookDispatcher } from './webhooks/dispatcher';
+import { startJobRunner } from './jobs/job-runner';
+import { startLoopDelayReport } from './jobs/loop-delay-report';
 
 const redactUrl = (url: string) => url.replace(/\/\/([^:/@]+):[^@]*@/, '//$1:***@');
 
@@ -35,6 +37,9 @@ async function main() {
   // Webhook deliveries and the expiry of idempotency records / rate-limit windows (any number of processes may run these).
   const webhookDispatcher = startWebhookDispatcher(deps);
   const stopPruners = [startIdempotencyPruner(deps), startRateLimitPruner(deps)];
+  // Analysis jobs: every process may work the shared queue (SWEEPLINE_RUN_JOBS=false for API-only processes).
+  const jobRunner = config.jobs.runWorkers ? startJobRunner(deps) : null;
+  const stopLoopReport = startLoopDelayReport(logger);
   await once(server, 'listening');
   const { port } = server.address() as AddressInfo;
   process.stdout.write(
@@ -51,9 +56,12 @@ async function main() {
     force.unref();
     server.closeIdleConnections();
     stopPruners.forEach((stopPruner) => stopPruner());
+    stopLoopReport();
+    // Running analyses finish or are released (re-queued) while the server drains.
+    const jobsStopped = jobRunner ? jobRunner.stop() : Promise.resolve();
     server.close(() => {
-      void webhookDispatcher
-        .stop()
+      void jobsStopped
+        .then(() => webhookDispatcher.stop())
         .then(() => database.close())
         .finally(() => process.exit(0));
     });

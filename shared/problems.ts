@@ -52,6 +52,7 @@ export const PROBLEMS = {
   quota_exceeded: { status: 429, title: 'A quota or rate limit of the plan is exhausted' },
   sign_in_throttled: { status: 429, title: 'Too many failed sign-in attempts' },
   internal_error: { status: 500, title: 'Something went wrong on our side' },
+  analysis_attempts_exhausted: { status: 500, title: 'The analysis ran out of attempts' },
   service_unavailable: { status: 503, title: 'The service is temporarily unavailable' },
 } as const satisfies Record<string, { status: number; title: string }>;
 

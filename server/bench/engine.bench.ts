@@ -1,7 +1,7 @@
 /**
  * Engine benchmark: `npm run bench:engine`. For each scenario, the full response analysis of a WAV capture
  * (decode the WAV bytes, deconvolve, window, smooth, grid output, band limits, 1/3-octave table) is timed in a
- * fresh process: 2 warm-up runs, then RUNS timed runs (median, min, max, IQR). Peak memory is measured in another
+ * fresh process: 3 warm-up runs, then RUNS timed runs (median, min, max, IQR). Peak memory is measured in another
  * fresh process: after a JIT warm-up on a 0.5 s capture and a GC, the growth of the process's peak RSS
  * (process.resourceUsage().maxRSS) during one analysis, compared with the capture's float64 size (frames ×
  * channels × 8 bytes). Times are wall-clock (the targets apply to them); the process CPU time (user + system, which
@@ -107,11 +107,12 @@ function child(mode: string, index: number, file: string): void {
   const bytes = new Uint8Array(readFileSync(file));
   const gc = (globalThis as { gc?: () => void }).gc ?? (() => undefined);
   if (mode === 'time') {
-    for (let i = 0; i < 2; i++) scenario.analyse(bytes, sweep);
+    for (let i = 0; i < 3; i++) scenario.analyse(bytes, sweep);
     const samples: number[] = [];
     const cpu: number[] = [];
+    // No forced GC between runs: it leaves concurrent sweeping running into the next timed run; a worker
+    // analysing one capture after another does not force collections either.
     for (let i = 0; i < RUNS; i++) {
-      gc();
       const start = performance.now();
       const cpuStart = process.cpuUsage();
       scenario.analyse(bytes, sweep);
@@ -191,7 +192,7 @@ function main(): void {
   const header = ['scenario', 'median', 'min–max', 'IQR', 'CPU median', 'time target', 'capture f64', 'peak RSS growth', 'memory target', 'heap / arrayBuffers after'];
   const widths = header.map((h, i) => Math.max(h.length, ...rows.map((r) => r[i].length)));
   const line = (cells: string[]) => cells.map((c, i) => c.padEnd(widths[i])).join('  ');
-  console.log(`Sweepline engine benchmark — ${RUNS} timed runs after 2 warm-ups per scenario, fresh process each; Node ${process.version}`);
+  console.log(`Sweepline engine benchmark — ${RUNS} timed runs after 3 warm-ups per scenario, fresh process each; Node ${process.version}`);
   console.log('Full response analysis: WAV decode (2-channel float32) + analytic-inverse deconvolution + window + 1/6-octave smoothing on a 48 points/octave grid + band limits + 1/3-octave table.');
   console.log(line(header));
   console.log(widths.map((w) => '-'.repeat(w)).join('  '));

@@ -25,6 +25,11 @@ const TAGS = [
   { name: 'Stimuli', description: 'Test signals defined by parameters, regenerated deterministically. Mind the safety cautions.' },
   { name: 'Captures', description: 'Uploaded WAV captures, validated on arrival and stored by content hash.' },
   { name: 'Analyses', description: 'Asynchronous analysis jobs and their results, with every convention stated.' },
+  { name: 'Calibrations', description: 'Chain sensitivity per rig input (dBFS at 1 Pa), from a calibrator capture or entered values, with a validity period.' },
+  { name: 'Tolerance masks', description: 'Upper and lower limits against frequency, versioned; derived from golden units or entered.' },
+  { name: 'Production', description: 'Yield and unit-to-unit statistics for a model and lot.' },
+  { name: 'Usage', description: 'Usage against the plan\'s monthly quotas and rate limit.' },
+  { name: 'Webhooks', description: 'Signed event notifications (Standard Webhooks v1.0.0) with retries and a delivery log.' },
 ];
 
 const SECURITY_SCHEMES = {

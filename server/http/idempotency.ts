@@ -1,4 +1,3 @@
-import { createHash } from 'node:crypto';
 import type { Request, Response } from 'express';
 import type { AppDeps } from '@server/deps';
 import { ApiProblem } from './api-problem';
@@ -12,6 +11,8 @@ import {
   type IdempotencyRecordRow,
   type IdempotencyScope,
 } from './idempotency-records.repo';
+
+export { multipartFingerprint, rawBodyFingerprint, recordRawBodyFingerprint, sha256Hex } from './idempotency-fingerprint';
 
 /**
  * Idempotency-Key for creating POSTs (IETF draft-ietf-httpapi-idempotency-key-header; Stripe's semantics):
@@ -51,33 +52,6 @@ const KEY_PATTERN = /^[\x21-\x7e]{1,255}$/;
 export function idempotencySettingOf(option: IdempotencyOption | undefined): IdempotencySetting | null {
   if (option === undefined) return null;
   return typeof option === 'string' ? { mode: option, fingerprint: 'body' } : option;
-}
-
-export function sha256Hex(bytes: Uint8Array | string): string {
-  return createHash('sha256').update(bytes).digest('hex');
-}
-
-/** What app.ts's JSON parser records while reading the body: the SHA-256 of the raw bytes. */
-export function rawBodyFingerprint(req: Request): string {
-  return (req as Request & { rawBodySha256?: string }).rawBodySha256 ?? sha256Hex('');
-}
-
-/** For express.json({ verify }): keeps the hash of the exact bytes received, before parsing. */
-export function recordRawBodyFingerprint(req: unknown, _res: unknown, buffer: Buffer): void {
-  (req as { rawBodySha256?: string }).rawBodySha256 = sha256Hex(buffer);
-}
-
-/**
- * Fingerprint of a multipart request: SHA-256 over its parts (field names, text values, and each file's own
- * SHA-256), not over the raw bytes, because clients draw a new random boundary on every retry (curl does), which
- * would make every honest retry look like a different request.
- */
-export function multipartFingerprint(parts: { fields: Record<string, string>; files: Array<{ field: string; sha256: string }> }): string {
-  const canonical = [
-    ...Object.entries(parts.fields).map(([name, value]) => ['field', name, value]),
-    ...parts.files.map((file) => ['file', file.field, file.sha256]),
-  ].sort((a, b) => (a.join('\u0000') < b.join('\u0000') ? -1 : 1));
-  return sha256Hex(JSON.stringify(canonical));
 }
 
 /** Thrown by claim() when a completed response exists: the router answers with it instead of the handler. */

@@ -45,7 +45,8 @@ function handle(route: RouteDefinition, deps: AppDeps) {
       // Later middleware and the handler see only parsed values (Express 5 exposes req.query as a getter).
       Object.defineProperty(req, 'query', { value: query, writable: true, configurable: true });
       req.params = params as Request['params'];
-      req.body = body;
+      // Routes that read their own body (bodyContent) keep it as parsed by express.json.
+      if (route.request.body) req.body = body;
 
       // After validation: a request refused by its schema or by access stores no idempotency record.
       if (route.idempotency && principal) {

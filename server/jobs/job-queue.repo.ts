@@ -48,7 +48,9 @@ export async function claimNextJob(db: Database, options: ClaimOptions): Promise
             finishedAt: options.now,
             updatedAt: options.now,
             error: {
-              code: 'job_attempts_exhausted',
+              code: 'analysis_attempts_exhausted',
+              title: 'The analysis ran out of attempts',
+              status: 500,
               detail: `The analysis was started ${row.attempts} time(s) and its worker stopped each time before finishing (lease expired); it is not retried again.`,
             },
           })

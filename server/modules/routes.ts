@@ -1,5 +1,6 @@
 import type { RouteDefinition } from '@server/http/define-route';
 import { apiKeyRoutes } from './api-keys/api-keys.routes';
+import { analysisRoutes } from './analyses/analyses.routes';
 import { auditRoutes } from './audit/audit.routes';
 import { captureRoutes } from './captures/captures.routes';
 import { stimulusRoutes } from './stimuli/stimuli.routes';
@@ -9,6 +10,7 @@ import { memberRoutes } from './members/members.routes';
 import { permissionRoutes } from './permissions/permissions.routes';
 import { calibrationRoutes } from './calibrations/calibrations.routes';
 import { maskRoutes } from './masks/masks.routes';
+import { productionRoutes } from './production/production.routes';
 import { usageRoutes } from './usage/usage.routes';
 import { webhookRoutes } from './webhook-endpoints/webhooks.routes';
 
@@ -22,8 +24,10 @@ export const v1Routes: RouteDefinition[] = [
   ...auditRoutes,
   ...stimulusRoutes,
   ...captureRoutes,
+  ...analysisRoutes,
   ...calibrationRoutes,
   ...maskRoutes,
+  ...productionRoutes,
   ...usageRoutes,
   ...webhookRoutes,
 ];

@@ -174,3 +174,28 @@ describe('usage periods', () => {
     expect([calendar.start.toISOString(), calendar.end.toISOString()]).toEqual(['2025-03-01T00:00:00.000Z', '2025-04-01T00:00:00.000Z']);
   });
 });
+
+describe('organisation plans from billing', () => {
+  it('applies a provider plan change and finds the organisation by customer', async () => {
+    const { organisationPlanBillingStore } = await import('@server/modules/usage/organisation-plan-billing-store');
+    const { getOrganisationPlan } = await import('@server/modules/usage/organisation-plan.service');
+    const user = await freshOrganisation({ analysesPerMonth: 7 });
+    const store = organisationPlanBillingStore(context.deps);
+    await store.applyPlanChange({
+      organisationId: user.organisationId,
+      customerId: 'cus_kestrelbay_0001',
+      subscriptionId: 'sub_kestrelbay_0001',
+      planId: 'line',
+      subscriptionStatus: 'active',
+      currentPeriodEndsAt: new Date('2025-04-14T00:00:00.000Z'),
+      providerEventId: 'evt_test_1',
+    });
+    expect(await store.findOrganisationIdByCustomerId('cus_kestrelbay_0001')).toBe(user.organisationId);
+    expect(await store.findOrganisationIdByCustomerId('cus_unknown')).toBeNull();
+    const plan = await getOrganisationPlan(context.deps, user.organisationId);
+    // The "line" plan's limits (server/billing/plans.ts) with the individual override kept.
+    expect(plan.planId).toBe('line');
+    expect(plan.limits.analysesPerMonth).toBe(7);
+    expect(plan.limits.audioMinutesPerMonth).toBe(6_000);
+  });
+});

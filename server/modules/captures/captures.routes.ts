@@ -22,13 +22,14 @@ export const captureRoutes = [
       `AES17), DC offset and clipping are recorded. ${LIMITS_NOTE}`,
     tags: ['Captures'],
     permission: 'captures:write',
+    idempotency: { mode: 'required', fingerprint: 'handler' },
     request: { headers: idempotencyHeadersSchema, bodyContent: { 'multipart/form-data': captureUploadSchema } },
     responses: {
       201: { description: 'The stored capture.', schema: captureSchema, headers: { location: { description: 'URL of the capture.', schema: z.string() } } },
     },
     problems: ['multipart_invalid', 'payload_too_large', 'invalid_wav', 'capture_over_limit', 'unsupported_media_type'],
-    handler: async ({ deps, principal, req, res }) => {
-      const capture = await uploadCapture(deps, principal, req, res);
+    handler: async ({ deps, principal, req, res, idempotency }) => {
+      const capture = await uploadCapture(deps, principal, req, res, idempotency);
       return { status: 201, body: capture, headers: { Location: `/v1/captures/${capture.id}` } };
     },
   }),

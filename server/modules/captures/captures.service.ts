@@ -4,7 +4,11 @@ import type { Request, Response } from 'express';
 import { captureStats, isEngineError, readWav, signalStatsWarnings, type DecodedWav, type EngineError } from '@shared/dsp';
 import type { Capture } from '@shared/schemas/captures';
 import type { Page } from '@shared/schemas/pagination';
+import type { Executor } from '@server/db/client';
 import type { AppDeps } from '@server/deps';
+import type { IdempotencyHandle } from '@server/http/idempotency';
+import { multipartFingerprint } from '@server/http/idempotency';
+import { recordStorageBytes } from '@server/modules/usage/usage.service';
 import { ApiProblem, notFound } from '@server/http/api-problem';
 import { decodeCursor, toPage } from '@server/http/pagination';
 import type { Principal } from '@server/http/principal';
@@ -58,18 +62,27 @@ function safeFilename(name: string): string {
   return cleaned || 'capture.wav';
 }
 
+export interface DecodedCapture {
+  wav: DecodedWav;
+  stats: ReturnType<typeof captureStats>;
+}
+
+/** Decodes and checks received bytes against the plan's limits (4xx naming the reason on failure). */
+export function decodeReceivedCapture(bytes: Uint8Array, limits: UploadLimits): DecodedCapture {
+  const wav = decodeUpload(bytes, limits);
+  return { wav, stats: captureStats(wav.channels) };
+}
+
 /**
- * Validates a received file, moves it into the blob store and records its metadata. The temp file is removed in
- * every case; a refused file leaves neither a blob nor a row.
+ * Moves a decoded upload into the blob store and returns the row insert to run (in the caller's transaction, so
+ * a refused request keeps no capture) and the blob clean-up for when that transaction fails.
  */
-export async function storeReceivedCapture(deps: AppDeps, organisationId: string, file: ReceivedFile, limits: UploadLimits): Promise<Capture> {
+export async function commitDecodedCapture(deps: AppDeps, organisationId: string, file: ReceivedFile, decoded: DecodedCapture, captureId = newId('capture')) {
   const store = blobStoreFor(deps);
-  const wav = decodeUpload(await readFile(file.path), limits);
-  const stats = captureStats(wav.channels);
   const stored = await store.put(createReadStream(file.path));
-  const now = deps.clock.now();
+  const { wav, stats } = decoded;
   const row: Omit<CaptureRow, 'organisationId'> = {
-    id: newId('capture'),
+    id: captureId,
     filename: safeFilename(file.originalName),
     sha256: stored.sha256,
     sizeBytes: stored.bytes,
@@ -80,23 +93,47 @@ export async function storeReceivedCapture(deps: AppDeps, organisationId: string
     format: { sampleEncoding: wav.sampleEncoding, bitsPerSample: wav.bitsPerSample, formatTag: wav.formatTag, extensible: wav.extensible },
     channelStats: channelStatsColumn(stats),
     warnings: signalStatsWarnings(stats) as unknown as Record<string, unknown>[],
-    createdAt: now,
+    createdAt: deps.clock.now(),
   };
+  // Storage is charged first (429 when over the plan) in its own short transaction, refunded if the insert fails.
   try {
-    await insertCapture(deps.db, organisationId, row);
+    await recordStorageBytes(deps, organisationId, stored.bytes);
   } catch (error) {
     if ((await countCapturesWithBlob(deps.db, stored.sha256)) === 0) await store.delete(stored.sha256);
     throw error;
   }
-  return presentCapture({ ...row, organisationId });
+  return {
+    row,
+    insert: async (tx: Executor) => {
+      await insertCapture(tx, organisationId, row);
+    },
+    rollbackBlob: async () => {
+      await recordStorageBytes(deps, organisationId, -stored.bytes).catch(() => undefined);
+      if ((await countCapturesWithBlob(deps.db, stored.sha256)) === 0) await store.delete(stored.sha256);
+    },
+  };
+}
+
+/** Validates a received file, stores it and records its metadata; a refused file leaves neither blob nor row. */
+export async function storeReceivedCapture(deps: AppDeps, organisationId: string, file: ReceivedFile, limits: UploadLimits): Promise<Capture> {
+  const decoded = decodeReceivedCapture(await readFile(file.path), limits);
+  const commit = await commitDecodedCapture(deps, organisationId, file, decoded);
+  try {
+    await deps.db.transaction((tx) => commit.insert(tx));
+  } catch (error) {
+    await commit.rollbackBlob();
+    throw error;
+  }
+  return presentCapture({ ...commit.row, organisationId });
 }
 
 /** POST /captures: multipart upload of one WAV in the part `file`. */
-export async function uploadCapture(deps: AppDeps, principal: Principal, req: Request, res: Response): Promise<Capture> {
+export async function uploadCapture(deps: AppDeps, principal: Principal, req: Request, res: Response, idempotency: IdempotencyHandle): Promise<Capture> {
   const limits = await uploadLimitsFor(deps, principal.organisationId);
   const received = await receiveMultipart(req, res, { tempDir: blobStoreFor(deps).tempDir, maxBytes: limits.maxBytes });
   try {
     if (!received.file) throw new ApiProblem('multipart_invalid', 'The upload has no part named "file" holding the WAV.');
+    await idempotency.claim(multipartFingerprint({ fields: received.fields, files: [{ field: 'file', sha256: received.file.sha256 }] }));
     return await storeReceivedCapture(deps, principal.organisationId, received.file, limits);
   } finally {
     await received.discard();
@@ -144,6 +181,7 @@ export async function deleteCapture(deps: AppDeps, organisationId: string, captu
     }
     throw error;
   }
+  await recordStorageBytes(deps, organisationId, -row.sizeBytes);
   if ((await countCapturesWithBlob(deps.db, row.sha256)) === 0) await blobStoreFor(deps).delete(row.sha256);
 }
 

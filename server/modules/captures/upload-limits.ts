@@ -1,6 +1,7 @@
 import type { WavLimits } from '@shared/dsp';
-import { FREE_PLAN_ID, PLANS, type PlanLimits } from '@server/billing/plans';
+import type { PlanLimits } from '@server/billing/plans';
 import type { AppDeps } from '@server/deps';
+import { getPlanLimits } from '@server/modules/usage/usage.service';
 
 export type UploadLimits = Required<Pick<WavLimits, 'maxBytes' | 'maxChannels' | 'maxDurationSeconds' | 'maxSampleRateHz'>>;
 
@@ -15,7 +16,5 @@ export function uploadLimitsFromPlan(limits: PlanLimits): UploadLimits {
 
 /** The upload limits of the organisation's plan. */
 export async function uploadLimitsFor(deps: AppDeps, organisationId: string): Promise<UploadLimits> {
-  void deps;
-  void organisationId;
-  return uploadLimitsFromPlan(PLANS[FREE_PLAN_ID].limits);
+  return uploadLimitsFromPlan(await getPlanLimits(deps, organisationId));
 }

@@ -22,6 +22,7 @@ export const stimulusRoutes = [
       `applies defaults; the stored parameters regenerate the file bit for bit.\n\n${STIMULUS_SAFETY_NOTE}`,
     tags: ['Stimuli'],
     permission: 'analyses:write',
+    idempotency: 'required',
     request: { body: createStimulusRequestSchema },
     responses: { 201: { description: 'The stimulus with its design figures and cautions.', schema: stimulusSchema } },
     problems: ['invalid_parameters'],

@@ -9,12 +9,16 @@ function affected(result: unknown): number {
   return (result as [{ affectedRows: number }])[0].affectedRows;
 }
 
-/** Creates the period's counter row at zero if missing (run outside the caller's transaction: see usage.service). */
+/**
+ * Creates the period's counter row at zero if missing. ON DUPLICATE KEY UPDATE (a no-op here) takes an exclusive
+ * lock on an existing row where INSERT IGNORE would take a shared one, so concurrent transactions queue on the
+ * row instead of deadlocking when they next update it (MariaDB/InnoDB locking of INSERT … ON DUPLICATE KEY UPDATE).
+ */
 export async function ensureCounterRow(db: Executor, organisationId: string, period: UsagePeriod): Promise<void> {
   await db
     .insert(usageCounters)
-    .ignore()
-    .values({ organisationId, periodStart: period.start, periodEnd: period.end, analysesCount: 0, audioSeconds: 0 });
+    .values({ organisationId, periodStart: period.start, periodEnd: period.end, analysesCount: 0, audioSeconds: 0 })
+    .onDuplicateKeyUpdate({ set: { analysesCount: sql`${usageCounters.analysesCount}` } });
 }
 
 export async function findCounter(db: Executor, organisationId: string, periodStart: Date): Promise<UsageCounterRow | undefined> {
@@ -90,7 +94,10 @@ export async function deleteCharge(db: Executor, organisationId: string, analysi
 }
 
 export async function ensureStorageRow(db: Executor, organisationId: string): Promise<void> {
-  await db.insert(storageUsage).ignore().values({ organisationId, storageBytes: 0 });
+  await db
+    .insert(storageUsage)
+    .values({ organisationId, storageBytes: 0 })
+    .onDuplicateKeyUpdate({ set: { storageBytes: sql`${storageUsage.storageBytes}` } });
 }
 
 export async function findStorageBytes(db: Executor, organisationId: string): Promise<number> {

@@ -48,16 +48,15 @@ function inTransaction<T>(deps: AppDeps, tx: Executor | undefined, work: (db: Ex
  */
 export async function reserveAnalysis(deps: AppDeps, orgId: string, input: ReserveAnalysisInput, tx?: Executor): Promise<UsageReservation> {
   const audioSeconds = Math.max(0, input.audioSeconds);
-  const plan = await getOrganisationPlan(deps, orgId);
   const now = deps.clock.now();
-  const period = usagePeriodAt(plan.periodAnchor, now);
-  const maxAnalyses = plan.limits.analysesPerMonth;
-  const maxAudioSeconds = plan.limits.audioMinutesPerMonth * 60;
-  // Created outside the caller's transaction: concurrent transactions that each insert-then-update the same
-  // fresh row would deadlock on the shared lock INSERT IGNORE takes for a duplicate.
-  await ensureCounterRow(deps.db, orgId, period);
-
+  // Everything on the caller's connection when given: taking a second pool connection while holding a
+  // transaction's would starve the pool under load (every holder waiting for another).
   return inTransaction(deps, tx, async (db) => {
+    const plan = await getOrganisationPlan(deps, orgId, db);
+    const period = usagePeriodAt(plan.periodAnchor, now);
+    const maxAnalyses = plan.limits.analysesPerMonth;
+    const maxAudioSeconds = plan.limits.audioMinutesPerMonth * 60;
+    await ensureCounterRow(db, orgId, period);
     if (!(await insertCharge(db, orgId, { analysisId: input.analysisId, periodStart: period.start, audioSeconds, createdAt: now }))) {
       const counter = await findCounter(db, orgId, period.start);
       return { period, analysesUsed: counter?.analysesCount ?? 0, audioSecondsUsed: counter?.audioSeconds ?? 0, charged: false };
@@ -116,9 +115,9 @@ export async function releaseAnalysis(deps: AppDeps, orgId: string, analysisId: 
 export async function recordStorageBytes(deps: AppDeps, orgId: string, deltaBytes: number, tx?: Executor): Promise<{ storageBytes: number }> {
   if (!Number.isFinite(deltaBytes)) throw new RangeError('deltaBytes must be a finite number of bytes');
   const delta = Math.round(deltaBytes);
-  const plan = await getOrganisationPlan(deps, orgId);
-  await ensureStorageRow(deps.db, orgId);
   return inTransaction(deps, tx, async (db) => {
+    const plan = await getOrganisationPlan(deps, orgId, db);
+    await ensureStorageRow(db, orgId);
     const added = await addStorageBytes(db, orgId, delta, plan.limits.storageBytes);
     const storageBytes = await findStorageBytes(db, orgId);
     if (delta > 0 && !added) {

@@ -50,6 +50,8 @@ export interface SweepResponseCurves {
   belowLowestValidFrequency: boolean[];
   /** True outside the sweep's [startHz, stopHz]: no excitation there. */
   outsideSweepBand: boolean[];
+  /** True below 2·f1 and above f2·2^(−1/6), where the sweep's band edges and fades affect the response. */
+  nearSweepEdge: boolean[];
   /** Estimated SNR per grid point, dB (null when the IR held no noise span). */
   snrDb: number[] | null;
   thirdOctave: ThirdOctaveBandValue[] | null;

@@ -138,6 +138,7 @@ describe('sweep frequency response', () => {
     result.curves.frequencyHz.forEach((f, i) => {
       if (f >= 100 && f <= 10000) expect(Math.abs(result.curves.magnitudeDb[i])).toBeLessThan(0.02);
     });
+    result.curves.frequencyHz.forEach((f, i) => expect(result.curves.nearSweepEdge[i]).toBe(f < 40 || f > 20000 * 2 ** (-1 / 6)));
     const third = result.curves.thirdOctave?.find((row) => row.nominalLabel === '1000');
     expect(third?.exactHz).toBe(1000);
     expect(Math.abs(third?.bandLevelDb ?? 99)).toBeLessThan(0.02);

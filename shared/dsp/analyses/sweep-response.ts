@@ -17,17 +17,19 @@ import { sweepSnr } from './sweep-snr';
 import { resolveSweepResponseOptions, type SweepResponseOptions } from './sweep-response-options';
 import type { SweepResponseResult } from './sweep-response-types';
 
+const SWEEP_EDGE = { lowFactor: 2, highFactor: 2 ** (-1 / 6) } as const;
+
+/** Lets a combined analysis reuse the deconvolution instead of repeating it (called once, before the spectrum). */
+export interface SweepResponseObserver {
+  onImpulse?: (impulse: SweepImpulse, design: SweepDesign, dividedByReference: boolean) => void;
+}
+
 /**
  * Frequency response from a synchronized-sweep capture: deconvolution (analytic inverse, or division by the
  * loopback channel), IR arrival and window/gate, excess spectrum, smoothing onto a log grid, phase and group
  * delay, calibration, normalisation, band limits, ±X dB range and the 1/3-octave table. Every convention used is
  * stated in the result; the same inputs give the same result bit for bit.
  */
-/** Lets a combined analysis reuse the deconvolution instead of repeating it (called once, before the spectrum). */
-export interface SweepResponseObserver {
-  onImpulse?: (impulse: SweepImpulse, design: SweepDesign, dividedByReference: boolean) => void;
-}
-
 export function analyzeSweepResponse(
   capture: CaptureInput,
   stimulus: SweepParameters | SweepDesign,
@@ -88,6 +90,8 @@ export function analyzeSweepResponse(
       }),
     );
   }
+  // Edge ripple of the deconvolved band (fades, no excitation beyond f1 and f2; common practice, no source).
+  const nearSweepEdge = Array.from(grid.gridHz, (f) => f < SWEEP_EDGE.lowFactor * startHz || f > stopHz * SWEEP_EDGE.highFactor);
   const lowestValidFrequencyHz = window.lowestValidFrequencyHz;
   const belowLowestValidFrequency = Array.from(grid.gridHz, (f) => window.gated && f < lowestValidFrequencyHz);
   if (window.gated && lowestValidFrequencyHz > grid.gridHz[0]) {
@@ -122,6 +126,7 @@ export function analyzeSweepResponse(
       speedOfSound: `${speedOfSound.toFixed(2)} m/s at ${temperatureCelsius} °C, c = 331.3·√(1 + θ/273.15) m/s (dry air)`,
       stimulus: `${design.formula}; f1 = ${startHz} Hz, f2 = ${stopHz} Hz, L = ${design.rateConstantSeconds} s, level ${design.parameters.levelDbfs} dBFS peak, half-Hann fades ${design.parameters.fadeInSeconds} s / ${design.parameters.fadeOutSeconds} s`,
       snr: snr.description,
+      sweepEdges: `points below ${SWEEP_EDGE.lowFactor}·f1 and above f2·2^(−1/6) are marked nearSweepEdge: the response there carries the band-edge ripple and fades of the sweep (sweep wider than the band you report)`,
       timeZero: 'start of the sweep in the capture (captureOffsetSeconds + leading silence); delay includes interface latency unless a loopback reference is divided out',
     },
     figures: {
@@ -159,6 +164,7 @@ export function analyzeSweepResponse(
       groupDelayMs: Array.from(grid.groupDelaySeconds, (s) => s * 1000),
       belowLowestValidFrequency,
       outsideSweepBand,
+      nearSweepEdge,
       snrDb: snr.snrDb ? Array.from(snr.snrDb) : null,
       thirdOctave: derived.thirdOctave,
       impulseResponse:

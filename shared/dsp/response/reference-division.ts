@@ -8,6 +8,8 @@ import { buffer, planSegment, type CircularImpulseResponse, type DeconvolutionOp
  * (regularised inversion, Kirkeby et al., IEEE Trans. Speech Audio Proc. 6(2), 1998). Layout, time zero and FFT
  * size as in deconvolve.ts; the result is relative to the loopback channel.
  */
+
+/** Weight 0 inside [f1, f2] rising to 1 one third of an octave outside (raised cosine in log2 f). */
 function outOfBandWeight(frequencyHz: number, startHz: number, stopHz: number): number {
   const transitionOctaves = 1 / 3;
   let octavesOutside = 0;

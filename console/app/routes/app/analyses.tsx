@@ -11,9 +11,9 @@ import { AnalysesFilters } from '@console/features/analyses/components/analyses-
 import { AnalysesTable } from '@console/features/analyses/components/analyses-table';
 import { BulkExportBar } from '@console/features/analyses/components/bulk-export-bar';
 import { filtersFromSearchParams, withFilters, type AnalysisFilters } from '@console/features/analyses/utils/filters';
+import { MAX_OVERLAY_CURVES } from '@console/features/compare/utils/overlay';
 
-/** The overlay stays readable up to about ten curves. */
-export const MAX_COMPARED = 10;
+const MAX_COMPARED = MAX_OVERLAY_CURVES;
 
 export const clientLoader =
   (queryClient: QueryClient) =>

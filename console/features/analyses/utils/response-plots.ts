@@ -1,21 +1,32 @@
 import { chartFills, okabeIto } from '@console/components/charts/chart-palette';
 import type { ChartRegion, ChartSeries, ChartSpec } from '@console/components/charts/chart-spec';
 import { formatDb, formatMilliseconds, withMinus } from '@console/components/charts/format-units';
-import { levelAtFrequencyDb } from '@shared/dsp/curves';
+import { bandMeanLevelDb, levelAtFrequencyDb } from '@shared/dsp/curves';
 import type { MaskVersion } from '@shared/schemas/masks';
 import { levelAxisLabel } from './conventions-words';
 import type { ImpulseView, MaskFigure, ResponseView } from './result-view';
 
 export const AUDIO_RANGE_HZ: [number, number] = [20, 20_000];
 
-type MaskLines = Pick<MaskVersion, 'levelReference' | 'upper' | 'lower'>;
+type MaskLines = Pick<MaskVersion, 'levelReference' | 'referenceLevel' | 'upper' | 'lower'>;
 
-/** A relative mask is read against the normalisation reference (0 dB when normalised) or the level at 1 kHz, as the verdict was. */
-export function maskOffsetDb(view: ResponseView, levelReference: MaskLines['levelReference']): number {
-  if (levelReference === 'absolute' || view.normalisationReferenceLevelDb !== null) return 0;
+/**
+ * Where a relative mask's 0 dB sits on the curve: the mask's own reference level when it states one, else the
+ * normalisation reference (0 dB when the curve is normalised) or the level at 1 kHz, as the verdict reads it.
+ */
+export function maskOffsetDb(view: ResponseView, lines: Pick<MaskLines, 'levelReference' | 'referenceLevel'>): number {
+  if (lines.levelReference === 'absolute') return 0;
   const points = view.frequencyHz.flatMap((f, i) => (view.magnitudeDb[i] === null ? [] : [[f, view.magnitudeDb[i] as number]]));
   if (points.length < 2) return 0;
-  return levelAtFrequencyDb({ frequencyHz: Float64Array.from(points, (p) => p[0]), magnitudeDb: Float64Array.from(points, (p) => p[1]) }, 1000);
+  const curve = { frequencyHz: Float64Array.from(points, (p) => p[0]), magnitudeDb: Float64Array.from(points, (p) => p[1]) };
+  try {
+    const reference = lines.referenceLevel;
+    if (reference?.kind === 'band_mean') return bandMeanLevelDb(curve, reference.fromHz, reference.toHz, reference.average);
+    if (reference?.kind === 'at_frequency') return levelAtFrequencyDb(curve, reference.frequencyHz);
+    return view.normalisationReferenceLevelDb !== null ? 0 : levelAtFrequencyDb(curve, 1000);
+  } catch {
+    return 0;
+  }
 }
 
 function failingRegions(mask: MaskFigure | null): ChartRegion[] {
@@ -34,7 +45,7 @@ function failingRegions(mask: MaskFigure | null): ChartRegion[] {
 /** Response magnitude, with the mask's limits as a band and its failing spans marked when the analysis has one. */
 export function responseSpec(view: ResponseView, magnitudeReference: string | number | undefined, mask: MaskFigure | null, lines: MaskLines | null): ChartSpec {
   const series: ChartSeries[] = [{ id: 'magnitude', label: 'Response', x: view.frequencyHz, y: view.magnitudeDb, colour: okabeIto.blue, width: 2 }];
-  const offset = lines ? maskOffsetDb(view, lines.levelReference) : 0;
+  const offset = lines ? maskOffsetDb(view, lines) : 0;
   for (const [id, points, label] of [
     ['mask-upper', lines?.upper, 'Upper limit'],
     ['mask-lower', lines?.lower, 'Lower limit'],

@@ -1,0 +1,116 @@
+import { randomBytes } from 'node:crypto';
+import os from 'node:os';
+import type { AppDeps } from '@server/deps';
+import { emitEvent } from '@server/modules/webhook-endpoints/webhooks.service';
+import { createEnginePool, engineThreadCount, type EnginePool } from './engine-pool';
+import { claimNextJob, releaseJob, type ClaimedJob } from './job-queue.repo';
+import { notifyJobFinished, onJobQueued } from './job-notifier';
+import { processJob } from './job-processor';
+
+export interface JobRunnerOptions {
+  /** Engine threads (= jobs run at once); default from config. */
+  threads?: number;
+  /** Idle poll interval, ms (a job queued in this process wakes the runner at once). */
+  pollMs?: number;
+  /** On stop, how long running jobs may take to finish before they are released, ms. */
+  shutdownGraceMs?: number;
+  /** Told when this runner is done with a job (tests and logs). */
+  onJobDone?: (analysisId: string, outcome: string) => void;
+}
+
+export interface JobRunner {
+  owner: string;
+  threads: number;
+  /** Stop claiming, let running jobs finish within the grace time, release the rest (re-queued), close the pool. */
+  stop(): Promise<void>;
+}
+
+/**
+ * Works the analysis queue in this process: claims jobs while an engine thread is free, runs them, and polls the
+ * database when idle, so any number of processes can share one queue.
+ */
+export function startJobRunner(deps: AppDeps, options: JobRunnerOptions = {}): JobRunner {
+  const threads = options.threads ?? engineThreadCount(deps.config.jobs.engineThreads);
+  const pool: EnginePool = createEnginePool(threads);
+  const owner = `${os.hostname().slice(0, 30)}:${process.pid}:${randomBytes(4).toString('hex')}`;
+  const pollMs = options.pollMs ?? 250;
+  const shutdown = new AbortController();
+  const active = new Map<string, Promise<unknown>>();
+  let stopping = false;
+  let wake: (() => void) | null = null;
+  const unsubscribe = onJobQueued(() => wake?.());
+
+  const claimOptions = {
+    owner,
+    leaseSeconds: deps.config.jobs.leaseSeconds,
+    maxAttempts: deps.config.jobs.maxAttempts,
+    onExhausted: (job: { id: string; organisationId: string; attempts: number }) => {
+      void emitEvent(deps, job.organisationId, 'analysis.failed', {
+        id: job.id,
+        kind: 'unknown',
+        status: 'failed',
+        error: { code: 'analysis_attempts_exhausted', title: 'The analysis ran out of attempts' },
+        url: `/v1/analyses/${job.id}`,
+      }).catch((error: unknown) => deps.logger.warn({ err: error }, 'could not record analysis.failed'));
+      notifyJobFinished(job.id);
+    },
+  };
+
+  const sleep = () =>
+    new Promise<void>((resolve) => {
+      const timer = setTimeout(done, pollMs);
+      function done() {
+        clearTimeout(timer);
+        wake = null;
+        resolve();
+      }
+      wake = done;
+    });
+
+  function start(job: ClaimedJob) {
+    const run = processJob(deps, pool, job, { owner, leaseSeconds: claimOptions.leaseSeconds, maxAttempts: claimOptions.maxAttempts, shutdown: shutdown.signal })
+      .then((outcome) => options.onJobDone?.(job.id, outcome))
+      .catch((error: unknown) => deps.logger.error({ err: error, analysisId: job.id }, 'job processing crashed'))
+      .finally(() => {
+        active.delete(job.id);
+        wake?.();
+      });
+    active.set(job.id, run);
+  }
+
+  const loop = (async () => {
+    while (!stopping) {
+      if (active.size >= threads) {
+        await sleep();
+        continue;
+      }
+      let job: ClaimedJob | null = null;
+      try {
+        job = await claimNextJob(deps.db, { ...claimOptions, now: deps.clock.now() });
+      } catch (error) {
+        if (!stopping) deps.logger.warn({ err: error }, 'claiming a job failed');
+      }
+      if (job) start(job);
+      else await sleep();
+    }
+  })();
+
+  return {
+    owner,
+    threads,
+    async stop() {
+      if (stopping) return;
+      stopping = true;
+      unsubscribe();
+      wake?.();
+      await loop;
+      const grace = new Promise((resolve) => setTimeout(resolve, options.shutdownGraceMs ?? 10_000).unref());
+      await Promise.race([Promise.allSettled([...active.values()]), grace]);
+      const unfinished = [...active.keys()];
+      shutdown.abort();
+      await Promise.allSettled([...active.values()]);
+      for (const id of unfinished) await releaseJob(deps.db, id, owner, deps.clock.now()).catch(() => false);
+      await pool.close();
+    },
+  };
+}
