@@ -10,7 +10,7 @@ afterAll(async () => {
   await m?.close();
 });
 
-const binary = (res: NodeJS.ReadableStream, done: (error: Error | null, body: Buffer) => void) => {
+const binary = (res: import("node:stream").Readable, done: (error: Error | null, body: unknown) => void) => {
   const chunks: Buffer[] = [];
   res.on('data', (chunk: Buffer) => chunks.push(chunk));
   res.on('end', () => done(null, Buffer.concat(chunks)));

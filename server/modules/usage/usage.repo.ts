@@ -31,6 +31,20 @@ export async function findCounter(db: Executor, organisationId: string, periodSt
 }
 
 /**
+ * The counter as committed now (a locking read): inside a transaction a plain SELECT would show the snapshot
+ * taken at the transaction's first read, not the increments other transactions committed since.
+ */
+export async function findCounterLatest(db: Executor, organisationId: string, periodStart: Date): Promise<UsageCounterRow | undefined> {
+  const [row] = await db
+    .select()
+    .from(usageCounters)
+    .where(and(eq(usageCounters.organisationId, organisationId), eq(usageCounters.periodStart, periodStart)))
+    .limit(1)
+    .for('update');
+  return row;
+}
+
+/**
  * Adds one analysis and its audio seconds only if both stay within their limits, in one statement: the row
  * lock makes concurrent callers queue, and each sees the others' increments. Returns whether it was added.
  */
@@ -100,8 +114,10 @@ export async function ensureStorageRow(db: Executor, organisationId: string): Pr
     .onDuplicateKeyUpdate({ set: { storageBytes: sql`${storageUsage.storageBytes}` } });
 }
 
-export async function findStorageBytes(db: Executor, organisationId: string): Promise<number> {
-  const [row] = await db.select().from(storageUsage).where(eq(storageUsage.organisationId, organisationId)).limit(1);
+/** `latest`: a locking read, for use inside a transaction (see findCounterLatest). */
+export async function findStorageBytes(db: Executor, organisationId: string, options: { latest?: boolean } = {}): Promise<number> {
+  const query = db.select().from(storageUsage).where(eq(storageUsage.organisationId, organisationId)).limit(1);
+  const [row] = options.latest ? await query.for('update') : await query;
   return Number(row?.storageBytes ?? 0);
 }
 

@@ -13,6 +13,7 @@ import {
   ensureStorageRow,
   findCharge,
   findCounter,
+  findCounterLatest,
   findStorageBytes,
   incrementWithinLimits,
   insertCharge,
@@ -58,11 +59,11 @@ export async function reserveAnalysis(deps: AppDeps, orgId: string, input: Reser
     const maxAudioSeconds = plan.limits.audioMinutesPerMonth * 60;
     await ensureCounterRow(db, orgId, period);
     if (!(await insertCharge(db, orgId, { analysisId: input.analysisId, periodStart: period.start, audioSeconds, createdAt: now }))) {
-      const counter = await findCounter(db, orgId, period.start);
+      const counter = await findCounterLatest(db, orgId, period.start);
       return { period, analysesUsed: counter?.analysesCount ?? 0, audioSecondsUsed: counter?.audioSeconds ?? 0, charged: false };
     }
     const added = await incrementWithinLimits(db, orgId, period.start, { audioSeconds, maxAnalyses, maxAudioSeconds });
-    const counter = await findCounter(db, orgId, period.start);
+    const counter = await findCounterLatest(db, orgId, period.start);
     const analysesUsed = counter?.analysesCount ?? 0;
     const audioSecondsUsed = counter?.audioSeconds ?? 0;
     if (!added) {
@@ -119,7 +120,7 @@ export async function recordStorageBytes(deps: AppDeps, orgId: string, deltaByte
     const plan = await getOrganisationPlan(deps, orgId, db);
     await ensureStorageRow(db, orgId);
     const added = await addStorageBytes(db, orgId, delta, plan.limits.storageBytes);
-    const storageBytes = await findStorageBytes(db, orgId);
+    const storageBytes = await findStorageBytes(db, orgId, { latest: true });
     if (delta > 0 && !added) {
       throw quotaExceeded({ quota: 'storage_bytes', limit: plan.limits.storageBytes, used: storageBytes, requested: delta, unit: 'bytes of storage', resetsAt: null });
     }

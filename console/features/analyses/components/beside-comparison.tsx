@@ -43,6 +43,7 @@ export function BesideComparison({ analysis, besideId }: { analysis: Analysis; b
   };
   return (
     <Panel
+      id="beside-original"
       title="Beside the original"
       description="Both runs of the same capture; the plot fills in when the new run has finished."
       actions={
