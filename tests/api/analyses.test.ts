@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { designSynchronizedSweep, renderSweep } from '@shared/dsp';
+import { designSteppedSine, designSynchronizedSweep, renderSteppedSine, renderSweep } from '@shared/dsp';
 import { analyses } from '@server/db/tables';
 import { eq } from 'drizzle-orm';
 import { auth, biquadFilter, biquadMagnitudeDb, idempotencyKey, measureContext, rbjPeakingCoefficients, wav, type MeasureContext } from './analyses-fixtures';
@@ -119,6 +119,34 @@ describe('other kinds', () => {
     const hd2 = curves.orders.find((order) => order.order === 2)!;
     const i = curves.frequencyHz.findIndex((f) => f >= 1000);
     expect(Math.abs((hd2.percent[i] as number) - expectedHd2Percent) / expectedHd2Percent).toBeLessThan(0.02);
+  });
+
+  it('stepped sine through a gain of 0.5 reads 20·log10(0.5) dB at every step', async () => {
+    const parameters = { startHz: 100, stopHz: 10_000, bandsPerOctave: 3, sampleRateHz: fs, levelDbfs: -12 };
+    const stimulus = await m.api().post('/v1/stimuli').set(auth(m.key)).set(idempotencyKey()).send({ type: 'stepped_sine', parameters });
+    const played = renderSteppedSine(designSteppedSine(parameters));
+    const capture = await upload(wav([played.map((x) => 0.5 * x)]));
+    const response = await m.api().post('/v1/analyses').set(auth(m.key)).set(idempotencyKey()).set('Prefer', 'wait=30')
+      .send({ kind: 'stepped_sine', captureId: capture.id, stimulusId: stimulus.body.id });
+    expect(response.status, JSON.stringify(response.body)).toBe(200);
+    expect(response.body.status, JSON.stringify(response.body.error)).toBe('succeeded');
+    const magnitudeDb = response.body.result.curves.magnitudeDb as number[];
+    expect(magnitudeDb.length).toBeGreaterThan(15);
+    // Closed form: a pure gain g reads 20·log10(g) at every coherent step.
+    for (const level of magnitudeDb) expect(Math.abs(level - 20 * Math.log10(0.5))).toBeLessThan(0.01);
+  });
+
+  it('calibrator: 1 kHz at peak A with a 94 dB SPL calibrator → 1 Pa reads 20·log10(A) − (94 − 93.98) dBFS', async () => {
+    const amplitude = 0.1;
+    const tone = Float64Array.from({ length: fs * 3 }, (_, n) => amplitude * Math.sin((2 * Math.PI * 1000 * n) / fs));
+    const capture = await upload(wav([tone]));
+    const response = await m.api().post('/v1/analyses').set(auth(m.key)).set(idempotencyKey()).set('Prefer', 'wait=30')
+      .send({ kind: 'calibrator', captureId: capture.id, calibrator: { statedLevelDbSpl: 94, statedFrequencyHz: 1000 } });
+    expect(response.status, JSON.stringify(response.body)).toBe(200);
+    expect(response.body.status, JSON.stringify(response.body.error)).toBe('succeeded');
+    // AES17: a sine of peak A reads 20·log10(A) dBFS; 1 Pa = 20·log10(1/20e-6) = 93.98 dB SPL (ISO 1683 reference).
+    const expected = 20 * Math.log10(amplitude) - (94 - 20 * Math.log10(1 / 20e-6));
+    expect(response.body.result.figures.chainSensitivityDbfsAtOnePascal).toBeCloseTo(expected, 2);
   });
 
   it('spectrum input (JSON, no WAV) gives band limits on the supplied grid', async () => {

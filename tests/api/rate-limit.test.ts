@@ -1,6 +1,8 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createApp } from '@server/app';
+import { rateLimitWindows } from '@server/db/tables';
+import { pruneRateLimitWindows } from '@server/http/rate-limit';
 import { manualClock } from '@server/lib/clock';
 import { setOrganisationPlan } from '@server/modules/usage/organisation-plan.service';
 import { bearer, createApiKey, signUp, type SignedUp } from '../support/actors';
@@ -85,5 +87,13 @@ describe('per-key rate limit', () => {
   it('leaves public routes alone', async () => {
     const health = await request(context.app).get('/v1/health');
     expect(health.headers['ratelimit-policy']).toBeUndefined();
+  });
+
+  it('prunes finished windows', async () => {
+    expect((await context.deps.db.select().from(rateLimitWindows)).length).toBeGreaterThan(0);
+    clock.advanceSeconds(3 * 60);
+    await pruneRateLimitWindows(context.deps);
+    expect(await context.deps.db.select().from(rateLimitWindows)).toHaveLength(0);
+    clock.set(start);
   });
 });

@@ -10,10 +10,11 @@ afterAll(async () => {
   await m?.close();
 });
 
-const binary = (res: import("node:stream").Readable, done: (error: Error | null, body: unknown) => void) => {
+// supertest's parser hook for binary bodies.
+const binary = (res: import('supertest').Response, done: (error: Error | null, body: Buffer) => void) => {
   const chunks: Buffer[] = [];
-  res.on('data', (chunk: Buffer) => chunks.push(chunk));
-  res.on('end', () => done(null, Buffer.concat(chunks)));
+  (res as unknown as NodeJS.ReadableStream).on('data', (chunk: Buffer) => chunks.push(chunk));
+  (res as unknown as NodeJS.ReadableStream).on('end', () => done(null, Buffer.concat(chunks)));
 };
 
 describe('stimuli', () => {

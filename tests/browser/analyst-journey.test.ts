@@ -89,14 +89,14 @@ describe('analyst journey', () => {
     await page.goto('/analyses');
     await page.getByRole('heading', { name: 'Analyses' }).waitFor();
     await page.getByRole('link', { name: /KB65-24-000104/ }).waitFor();
-    await page.getByLabel('Lot').fill('LOT-A');
-    await page.getByLabel('Lot').press('Enter');
+    await page.getByLabel('Lot', { exact: true }).fill('LOT-A');
+    await page.getByLabel('Lot', { exact: true }).press('Enter');
     await expect.poll(() => new URL(page.url()).searchParams.get('lot')).toBe('LOT-A');
     await expect.poll(() => page.getByRole('link', { name: /KB65-24-0001/ }).count()).toBe(3);
     expect(await page.getByRole('link', { name: /KB65-24-000104/ }).count()).toBe(0);
     await saveScreenshot(page, 'analyst-01-history-lot-a');
 
-    await page.getByLabel('Verdict').selectOption('fail');
+    await page.getByLabel('Verdict', { exact: true }).selectOption('fail');
     await expect.poll(() => page.getByRole('link', { name: /KB65-24-0001/ }).count()).toBe(1);
     await page.getByRole('link', { name: /KB65-24-000103/ }).waitFor();
   });
@@ -139,7 +139,7 @@ describe('analyst journey', () => {
     await saveScreenshot(page, 'analyst-04-overlay');
 
     await page.getByText('Difference to reference').click();
-    await page.getByLabel('Reference curve').waitFor();
+    await page.getByLabel('Reference curve', { exact: true }).waitFor();
     await legend.getByText(/\(reference\)/).waitFor();
     await legend.getByRole('checkbox').nth(2).uncheck();
     await saveScreenshot(page, 'analyst-05-difference');
@@ -149,7 +149,7 @@ describe('analyst journey', () => {
     const original = created['KB65-24-000101'];
     await page.goto(`/analyses/${original.id}`);
     await page.getByRole('heading', { name: 'Re-run with other options' }).waitFor();
-    await page.getByLabel('Smoothing').selectOption('24');
+    await page.getByLabel('Smoothing', { exact: true }).selectOption('24');
     await page.getByRole('button', { name: 'Re-run analysis' }).click();
     await page.getByRole('heading', { name: 'Beside the original' }).waitFor();
     await expect.poll(() => new URL(page.url()).searchParams.get('beside')).toBe(original.id);

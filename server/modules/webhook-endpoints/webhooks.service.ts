@@ -29,9 +29,9 @@ import { deleteEndpoint, findEndpoint, insertEndpoint, listEnabledEndpoints, lis
 import { presentDelivery, presentEndpoint } from './webhook-presenter';
 import { sealEndpointSecret } from './webhook-secrets';
 
-// The API's list and the sender's payload catalogue must name the same events.
-const _sameEventTypes: readonly WebhookEventType[] = WEBHOOK_EVENT_TYPE_NAMES satisfies readonly WebhookEventType[];
-void _sameEventTypes;
+// The API's list (shared/schemas) and the sender's payload catalogue (server/webhooks/events.ts) must name the
+// same events: `satisfies` checks one direction at compile time, the length the other at start-up.
+WEBHOOK_EVENT_TYPE_NAMES satisfies readonly WebhookEventType[];
 if (WEBHOOK_EVENT_TYPES.length !== WEBHOOK_EVENT_TYPE_NAMES.length) throw new Error('webhook event type lists differ');
 
 /** Default time the previous secret keeps signing after a rotation. */

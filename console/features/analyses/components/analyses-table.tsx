@@ -1,10 +1,10 @@
-import { useState } from 'react';
+import { useMemo, useState } from 'react';
 import { flexRender, getCoreRowModel, getSortedRowModel, useReactTable, type OnChangeFn, type RowSelectionState, type SortingState } from '@tanstack/react-table';
 import { Button } from '@console/components/ui/button';
 import { EmptyState, ErrorState, LoadingState } from '@console/components/ui/states';
 import { Table, Td, Th } from '@console/components/ui/table';
 import { cn } from '@console/utils/cn';
-import { useAnalyses } from '../api/get-analyses';
+import { useAnalyses, type AnalysisSummary } from '../api/get-analyses';
 import { hasFilters, type AnalysisFilters } from '../utils/filters';
 import { analysisColumns } from './analysis-columns';
 
@@ -15,6 +15,7 @@ type AnalysesTableProps = {
 };
 
 const sortMark = { asc: '▲', desc: '▼' } as const;
+const NO_ROWS: AnalysisSummary[] = [];
 
 /**
  * The job history. Pages come from the API newest first (cursor pagination, "Load more"); the column headers
@@ -23,12 +24,14 @@ const sortMark = { asc: '▲', desc: '▼' } as const;
 export function AnalysesTable({ filters, selection, onSelectionChange }: AnalysesTableProps) {
   const analyses = useAnalyses(filters);
   const [sorting, setSorting] = useState<SortingState>([{ id: 'createdAt', desc: true }]);
-  const rows = analyses.data?.pages.flatMap((page) => page.data) ?? [];
+  // The table re-derives its rows whenever `data` changes identity, so it gets one array per fetched result.
+  const rows = useMemo(() => analyses.data?.pages.flatMap((page) => page.data) ?? NO_ROWS, [analyses.data]);
   const table = useReactTable({
     data: rows,
     columns: analysisColumns,
     state: { sorting, rowSelection: selection },
     getRowId: (row) => row.id,
+    autoResetAll: false,
     onSortingChange: setSorting,
     onRowSelectionChange: onSelectionChange,
     getCoreRowModel: getCoreRowModel(),
