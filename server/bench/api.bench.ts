@@ -72,8 +72,7 @@ async function main() {
   const signUp = await fetch(`${base}/v1/auth/sign-up`, { method: 'POST', headers: { 'content-type': 'application/json', origin: base }, body: JSON.stringify({ email: `bench.${Date.now()}@kestrelbay.example`, password: 'kb65-bench-password', displayName: 'Bench Rig', organisationName: 'Kestrel Bay Acoustics' }) });
   const session = (await signUp.json()) as { activeOrganisation: { id: string } };
   const cookie = signUp.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
-  const keyResponse = await fetch(`${base}/v1/api-keys`, { method: 'POST', headers: { 'content-type': 'application/json', origin: base, cookie, 'idempotency-key': randomUUID() }, body: JSON.stringify({ name: 'bench rigs', scopes: ['captures:write', 'analyses:write', 'analyses:read'] }) });
-  const { secret } = (await keyResponse.json()) as { secret: string };
+  // The plan is set before the first rate-limited request, so no process caches the free plan's limits.
   const db = createDatabase(databaseUrl, { connectionLimit: 2 });
   const config = { ...loadConfig({ NODE_ENV: 'test', SESSION_SECRET, DATABASE_URL: databaseUrl }) };
   await setOrganisationPlan({ db: db.db, clock: systemClock, config, logger: createLogger('silent') } as never, session.activeOrganisation.id, {
@@ -81,6 +80,8 @@ async function main() {
     limitOverrides: { analysesPerMonth: 10_000_000, audioMinutesPerMonth: 10_000_000, requestsPerMinute: 10_000_000, storageBytes: 1e13 },
   });
   await db.close();
+  const keyResponse = await fetch(`${base}/v1/api-keys`, { method: 'POST', headers: { 'content-type': 'application/json', origin: base, cookie, 'idempotency-key': randomUUID() }, body: JSON.stringify({ name: 'bench rigs', scopes: ['captures:write', 'analyses:write', 'analyses:read'] }) });
+  const { secret } = (await keyResponse.json()) as { secret: string };
 
   const parameters = { startHz: 20, stopHz: 20_000, approximateDurationSeconds: 2, sampleRateHz: 48_000, levelDbfs: -12, trailingSilenceSeconds: 0.3 };
   const auth = { authorization: `Bearer ${secret}` };

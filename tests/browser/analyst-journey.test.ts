@@ -2,7 +2,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { startJobRunner, type JobRunner } from '@server/jobs/job-runner';
 import { startTestServer } from '../support/test-server';
-import { isLoopbackUrl, launchBrowser, recordRequests, saveScreenshot } from '../support/browser';
+import path from 'node:path';
+import { isLoopbackUrl, launchBrowser, recordRequests, saveScreenshot, SCREENSHOT_DIR } from '../support/browser';
 import { apiCalls, SWEEP_PARAMETERS, unitCapture } from './analyst-fixtures';
 
 type Analysis = { id: string; status: string; verdict: string | null; result: { curves: Record<string, unknown> } | null };
@@ -111,6 +112,9 @@ describe('analyst journey', () => {
     const figures = page.getByRole('region', { name: 'Mask verdict' });
     expect(await figures.innerText()).toMatch(/Fail[\s\S]*Worst margin[\s\S]*\u2212\d/);
     await saveScreenshot(page, 'analyst-02-failing-unit');
+    await plot.screenshot({ path: path.join(SCREENSHOT_DIR, 'analyst-02a-response-plot.png') });
+    await page.locator('section', { has: page.getByRole('heading', { name: 'Figures', level: 2 }) }).screenshot({ path: path.join(SCREENSHOT_DIR, 'analyst-02b-figures.png') });
+    await page.locator('section', { has: page.getByRole('heading', { name: 'Impulse response', level: 2 }) }).screenshot({ path: path.join(SCREENSHOT_DIR, 'analyst-02c-impulse.png') });
   });
 
   it('switches the distortion plot between THD_F and THD_R', async () => {
@@ -120,8 +124,7 @@ describe('analyst journey', () => {
     await distortion.getByText('THD_R', { exact: true }).click();
     await distortion.getByText('THD_R: harmonics over fundamental plus harmonics.').waitFor();
     expect(await distortion.getByRole('radio', { name: 'THD_R' }).isChecked()).toBe(true);
-    await distortion.scrollIntoViewIfNeeded();
-    await saveScreenshot(page, 'analyst-03-thd-r', { fullPage: false });
+    await distortion.screenshot({ path: path.join(SCREENSHOT_DIR, 'analyst-03-thd-r.png') });
   });
 
   it('overlays three units of the lot and shows their difference to a reference', async () => {

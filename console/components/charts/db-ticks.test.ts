@@ -34,8 +34,13 @@ describe('log axis ticks', () => {
     expect(logTicks(0.01, 10)).toEqual([0.01, 0.02, 0.05, 0.1, 0.2, 0.5, 1, 2, 5, 10]);
   });
 
-  it('widens to whole decades, at least two', () => {
+  it('keeps only powers of ten past three decades', () => {
+    expect(logTicks(0.001, 10)).toEqual([0.001, 0.01, 0.1, 1, 10]);
+  });
+
+  it('widens to whole decades, at least two and at most four below the top', () => {
     expect(logAxisRange(0.13, 4.2)).toEqual([0.1, 10]);
     expect(logAxisRange(0.3, 0.8)).toEqual([0.01, 1]);
+    expect(logAxisRange(1e-9, 3)).toEqual([0.001, 10]);
   });
 });

@@ -35,12 +35,13 @@ export function dbAxisRange(minDb: number, maxDb: number, minimumSpanDb = 20, ma
   return [Math.floor(low / step) * step, Math.ceil(high / step) * step];
 }
 
-/** Ticks of a log axis: 1, 2 and 5 times each power of ten inside [min, max] (min > 0). */
+/** Ticks of a log axis: 1, 2 and 5 times each power of ten inside [min, max] (min > 0); powers of ten only past three decades. */
 export function logTicks(min: number, max: number): number[] {
   if (!(min > 0) || !(max >= min)) return [];
   const ticks: number[] = [];
-  for (let exponent = Math.floor(Math.log10(min)); 10 ** exponent <= max; exponent++) {
-    for (const mantissa of [1, 2, 5]) {
+  const mantissas = Math.log10(max / min) > 3.01 ? [1] : [1, 2, 5];
+  for (let exponent = Math.floor(Math.log10(min) + 1e-9); 10 ** exponent <= max * (1 + 1e-9); exponent++) {
+    for (const mantissa of mantissas) {
       const value = Number((mantissa * 10 ** exponent).toPrecision(3));
       if (value >= min * (1 - 1e-9) && value <= max * (1 + 1e-9)) ticks.push(value);
     }
@@ -48,11 +49,16 @@ export function logTicks(min: number, max: number): number[] {
   return ticks;
 }
 
-/** Whole decades around [min, max] for a log axis, at least `minimumDecades` wide. */
-export function logAxisRange(min: number, max: number, minimumDecades = 2): [number, number] {
+/**
+ * Whole decades around [min, max] for a log axis, from `minimumDecades` to `maximumDecades` wide: values far
+ * below the largest (numerical residue, a harmonic the device does not make) fall off the bottom instead of
+ * squashing the curves that matter.
+ */
+export function logAxisRange(min: number, max: number, minimumDecades = 2, maximumDecades = 4): [number, number] {
   if (!(min > 0) || !(max > 0)) return [0.01, 10];
-  let low = Math.floor(Math.log10(min));
-  let high = Math.ceil(Math.log10(max));
+  let low = Math.floor(Math.log10(min) + 1e-9);
+  const high = Math.ceil(Math.log10(max) - 1e-9);
   if (high - low < minimumDecades) low = high - minimumDecades;
-  return [10 ** low, 10 ** high];
+  if (high - low > maximumDecades) low = high - maximumDecades;
+  return [Number((10 ** low).toPrecision(1)), Number((10 ** high).toPrecision(1))];
 }

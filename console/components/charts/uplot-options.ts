@@ -13,6 +13,7 @@ export const CHART_FONTS = ['11px "JetBrains Mono Variable"', '600 12px "Manrope
 function logFrequencyAxis(): Partial<uPlot.Axis> {
   return {
     splits: (_u, _axis, min, max) => thirdOctaveGridLines(min, max).map((line) => line.frequencyHz),
+    filter: (_u, splits) => splits,
     values: (u, splits) => {
       const lines = thirdOctaveGridLines(u.scales.x.min ?? splits[0], u.scales.x.max ?? splits[splits.length - 1]);
       const labelAt = new Map(lines.map((line) => [line.frequencyHz, line.isLabelled ? frequencyTickLabel(Number(line.nominalLabel)) : '']));
@@ -24,7 +25,9 @@ function logFrequencyAxis(): Partial<uPlot.Axis> {
 function yAxis(spec: ChartSpec): Partial<uPlot.Axis> {
   return {
     splits: (_u, _axis, min, max) => (spec.yScale === 'log' ? logTicks(min, max) : dbTicks(min, max, dbTickStep(max - min))),
-    values: (_u, splits) => splits.map((v) => withMinus(String(Number(v.toPrecision(6))))),
+    // uPlot thins log-axis labels by default (nulls in `splits`); our ticks are already chosen, so keep them all.
+    filter: (_u, splits) => splits,
+    values: (_u, splits) => splits.map((v) => (v === null || v === undefined ? '' : withMinus(String(Number(v.toPrecision(6)))))),
     size: 60,
   };
 }

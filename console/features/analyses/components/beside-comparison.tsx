@@ -16,7 +16,9 @@ import { StatusBadge } from './status-badge';
 
 function smoothingOf(analysis: Analysis): string {
   const result = resultOf(analysis);
-  return conventionLines(result?.conventions).find((line) => line.key === 'smoothing')?.text ?? '—';
+  const text = conventionLines(result?.conventions).find((line) => line.key === 'smoothing')?.text;
+  // The stated smoothing opens with its width ("1/24 octave, power …"); the rest is in the conventions block.
+  return text ? text.split(/[,;(]/)[0].trim() : '—';
 }
 
 /** This analysis next to the one it was compared with (after a re-run): both responses on one plot, and what differs. */
