@@ -10,32 +10,35 @@
 // capture -> ask for an analysis and wait for it -> print the headline figures and the verdict.
 //
 // Every POST that creates something carries an Idempotency-Key. If the line drops and the script retries, it
-// sends the *same* key, so the server replays its first answer instead of creating a second capture or
+// sends the *same* key, so the server replays its first answer instead of creating a second stimulus, capture or
 // analysis. A new key is made only for a genuinely new request.
 
 import { createHmac, randomUUID, timingSafeEqual } from 'node:crypto';
 import { openAsBlob, readFileSync, realpathSync, writeFileSync } from 'node:fs';
-import { basename } from 'node:path';
+import { basename, join } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { fetch, FormData } from 'undici';
 
 // --- What this rig measures. Edit for your set-up. ------------------------------------------------------------
-// The capture you upload must be a recording of exactly this stimulus (same rate, length and sweep).
-const STIMULUS = { kind: 'sweep', startHz: 20, stopHz: 20000, durationSeconds: 2, sampleRateHz: 48000, levelDbfs: -12 };
-const CHANNELS = { measurement: 0, reference: 1 }; // input channel roles in the capture WAV; drop reference if none
-const CONDITIONS = { distanceM: 1.0, driveVoltageVrms: 2.83, nominalImpedanceOhm: 8 };
+// The capture you upload must be a recording of exactly this stimulus (same rate, length and sweep): the server
+// regenerates the sweep from these parameters to deconvolve the capture.
+const STIMULUS = {
+  type: 'sweep',
+  name: 'KB-65 woofer sweep 20 Hz - 20 kHz',
+  parameters: { startHz: 20, stopHz: 20000, approximateDurationSeconds: 2, sampleRateHz: 48000, levelDbfs: -12 },
+};
+const CHANNELS = { measurement: 0, reference: 1 }; // capture channel roles: microphone, loopback (null if none)
+const CONDITIONS = { distanceM: 1.0, driveVoltageVrms: 2.83, nominalImpedanceOhm: 8, temperatureC: 20 };
 const DUT = {
-  model: process.env.SWEEPLINE_DUT_MODEL ?? 'KB-65',
+  model: process.env.SWEEPLINE_DUT_MODEL ?? 'KB-65 woofer',
   serial: process.env.SWEEPLINE_DUT_SERIAL ?? 'KB65-24-000123',
   lot: process.env.SWEEPLINE_DUT_LOT ?? 'KB65-L24-07',
 };
-const OPTIONS = {}; // engine defaults; smoothing, gating, harmonic orders etc. are described in the API reference
-
-const SAFETY_CAUTION = `SAFETY before playing the stimulus:
-  * Start at a low level and raise it step by step; a full-scale sweep can destroy a tweeter.
-  * Never play test signals into headphones or an ear simulator while a person is wearing them.
-  * Cap the amplifier's drive voltage for each DUT (its rated power into its nominal impedance).
-  * Protect your own hearing near loud drivers; follow your lab's procedures and local regulations.`;
+const TAGS = ['line-1'];
+// response_and_distortion takes { response: {...}, distortion: {...} }; {} = engine defaults (see the API reference).
+const OPTIONS = {};
+// Where the downloaded stimulus WAV is saved for the rig's player.
+const STIMULUS_DIR = process.env.SWEEPLINE_STIMULUS_DIR ?? '.';
 
 const TERMINAL_STATES = new Set(['succeeded', 'failed', 'canceled']);
 const POLL_DEADLINE_MS = 300_000;
@@ -69,6 +72,7 @@ function retryAfterMs(headers, defaultMs) {
 /** One HTTP exchange, retried with the same headers (and so the same Idempotency-Key) when it is safe to. */
 async function call(apiKey, url, { method = 'GET', headers = {}, body } = {}) {
   for (let attempt = 1; ; attempt += 1) {
+    const backoffMs = 2 ** (attempt - 1) * 1000; // 1, 2, 4, 8 s
     let response;
     try {
       // `body` is rebuilt per try (a FormData or string can be sent again; a stream could not).
@@ -80,21 +84,22 @@ async function call(apiKey, url, { method = 'GET', headers = {}, body } = {}) {
       });
     } catch (error) {
       if (attempt === MAX_TRIES) throw error;
-      const waitMs = 2 ** attempt * 1000;
-      console.error(`  network error (${error.cause?.code ?? error.message}), retrying in ${waitMs / 1000}s (same Idempotency-Key)`);
-      await sleep(waitMs);
+      console.error(`  network error (${error.cause?.code ?? error.message}), retrying in ${backoffMs / 1000}s (same Idempotency-Key)`);
+      await sleep(backoffMs);
       continue;
     }
     if (response.ok) return response;
+    // 409: the first try with this key is still being processed; 429: rate limit or quota; 5xx: server trouble.
     const retryable = response.status === 409 || response.status === 429 || response.status >= 500;
     const problem = await response.json().catch(() => ({}));
     if (!retryable || attempt === MAX_TRIES) throw new ApiError(response.status, problem);
-    const waitMs = retryAfterMs(response.headers, 2 ** attempt * 1000);
+    const waitMs = retryAfterMs(response.headers, backoffMs);
     console.error(`  HTTP ${response.status}, retrying in ${waitMs / 1000}s (same Idempotency-Key)`);
     await sleep(waitMs);
   }
 }
 
+/** POST a JSON document with a fresh Idempotency-Key; call() reuses that key for every retry of this request. */
 function postJson(apiKey, url, document, extraHeaders = {}) {
   return call(apiKey, url, {
     method: 'POST',
@@ -108,17 +113,19 @@ async function run(capturePath) {
 
   // 1. The stimulus, defined by parameters; the server renders the same WAV every time.
   const stimulus = await (await postJson(apiKey, `${baseUrl}/v1/stimuli`, STIMULUS)).json();
-  console.log(`stimulus ${stimulus.id}: ${STIMULUS.startHz}-${STIMULUS.stopHz} Hz sweep, ${STIMULUS.durationSeconds} s at ${STIMULUS.sampleRateHz} Hz`);
+  const { startHz, stopHz, sampleRateHz } = stimulus.parameters;
+  console.log(`stimulus ${stimulus.id}: ${startHz}-${stopHz} Hz sweep, ${stimulus.totalDurationSeconds} s at ${sampleRateHz} Hz`);
   const audio = await call(apiKey, `${baseUrl}/v1/stimuli/${encodeURIComponent(stimulus.id)}/audio?encoding=float32`, {
     headers: { accept: 'audio/wav' },
   });
-  const stimulusPath = `stimulus-${stimulus.id}.wav`;
+  const stimulusPath = join(STIMULUS_DIR, `stimulus-${stimulus.id}.wav`);
   const wav = Buffer.from(await audio.arrayBuffer());
   writeFileSync(stimulusPath, wav);
   console.log(`saved ${stimulusPath} (${wav.length} bytes)`);
 
-  // 2. Playback and recording happen on the rig, outside this script.
-  console.log(SAFETY_CAUTION);
+  // 2. Playback and recording happen on the rig, outside this script. Show the server's cautions first.
+  console.log('SAFETY before playing the stimulus:');
+  for (const caution of stimulus.cautions ?? []) console.log(`  * ${caution}`);
   console.log(`-> the rig would now play ${stimulusPath} through the DUT and record it; this script uses ${capturePath} instead.`);
 
   // 3. Upload the capture. One key for this upload, reused by every retry of it.
@@ -131,17 +138,20 @@ async function run(capturePath) {
   const capture = await (
     await call(apiKey, `${baseUrl}/v1/captures`, { method: 'POST', headers: { 'idempotency-key': randomUUID() }, body: uploadForm })
   ).json();
-  console.log(`capture ${capture.id} uploaded (${captureBlob.size} bytes)`);
+  console.log(`capture ${capture.id} uploaded (${capture.channelCount} ch, ${capture.durationSeconds} s)`);
+  for (const warning of capture.warnings ?? []) console.log(`  capture warning ${warning.code}: ${warning.message}`);
 
-  // 4. Ask for the analysis; Prefer: wait=10 (RFC 7240) returns the result at once when it is quick.
+  // 4. Ask for the analysis; Prefer: wait=10 (RFC 7240) returns the finished result at once (200) when it is
+  //    quick, else 202 with Location.
   const analysisRequest = {
     kind: 'response_and_distortion',
     captureId: capture.id,
     stimulusId: stimulus.id,
     channels: CHANNELS,
     conditions: CONDITIONS,
-    dut: DUT,
     options: OPTIONS,
+    dut: DUT,
+    tags: TAGS,
   };
   let response = await postJson(apiKey, `${baseUrl}/v1/analyses`, analysisRequest, { prefer: 'wait=10' });
   let analysis = await response.json();
@@ -154,12 +164,29 @@ async function run(capturePath) {
     await sleep(retryAfterMs(response.headers, 2000));
     response = await call(apiKey, monitorUrl);
     analysis = await response.json();
-    console.log(`  analysis ${analysis.id}: ${analysis.status}`);
+    console.log(`  analysis ${analysis.id}: ${analysis.status} (${Math.round(analysis.progress * 100)} %)`);
   }
   return printHeadline(analysis);
 }
 
-const isHeadline = (name) => /sensitivity|thd|band|limit/i.test(name);
+// --- The headline: the figures a production line usually logs, from result.figures ----------------------------
+
+const fixed = (value, digits) => (typeof value === 'number' ? value.toFixed(digits) : 'n/a');
+const line = (label, text) => console.log(`  ${label.padEnd(28)} ${text}`);
+
+/** A band edge: found at a frequency, or not inside the measured range (then the edge examined is not the limit). */
+function limitPoint(point) {
+  if (point?.status === 'found') return `${fixed(point.frequencyHz, 1)} Hz`;
+  if (point?.status === 'beyond_measured_range') return `beyond ${fixed(point.measuredEdgeHz, 1)} Hz`;
+  if (point?.status === 'outside_at_reference_band') return `none (already outside at ${fixed(point.atHz, 1)} Hz)`;
+  return 'n/a';
+}
+
+/** A distortion summary value: percent at a frequency, "≤" when it is only an upper bound (noise floor). */
+function distortionValue(value) {
+  if (!value || typeof value.valuePercent !== 'number') return 'n/a';
+  return `${value.isUpperBound ? '<= ' : ''}${fixed(value.valuePercent, 4)} % at ${fixed(value.frequencyHz, 1)} Hz`;
+}
 
 function printHeadline(analysis) {
   console.log(`analysis ${analysis.id} ${analysis.status}`);
@@ -167,19 +194,25 @@ function printHeadline(analysis) {
     console.log(`  ${analysis.error?.title ?? 'no result'}: ${analysis.error?.detail ?? ''}`);
     return 1;
   }
-  const result = analysis.result ?? {};
-  const figures = Object.entries(result.figures ?? {}).filter(([, value]) => ['number', 'string'].includes(typeof value));
-  const headline = figures.filter(([name]) => isHeadline(name));
-  for (const [name, value] of headline.length > 0 ? headline : figures) console.log(`  ${name.padEnd(36)} ${value}`);
-  let verdict = result.verdict ?? analysis.verdict;
-  if (verdict && typeof verdict === 'object') {
-    verdict = Object.entries(verdict)
-      .filter(([, value]) => typeof value !== 'object')
-      .map(([key, value]) => `${key}=${value}`)
-      .join(', ');
+  const figures = analysis.result?.figures ?? {};
+  const conventions = analysis.result?.conventions ?? {};
+  const bandLimits = figures.bandLimits;
+  if (bandLimits) {
+    line('reference level', `${fixed(bandLimits.reference.levelDb, 2)} dB (${bandLimits.reference.description})`);
+    for (const limit of bandLimits.limits) line(`-${limit.dropDb} dB points`, `${limitPoint(limit.lower)} .. ${limitPoint(limit.upper)}`);
   }
-  console.log(`  ${'verdict'.padEnd(36)} ${verdict ?? 'none (no tolerance mask)'}`);
-  for (const warning of result.warnings ?? []) console.log(`  warning ${warning.code}: ${warning.message}`);
+  if (conventions.magnitudeReference) line('magnitude reference', conventions.magnitudeReference);
+  const distortion = figures.distortion;
+  if (distortion) {
+    // thdHeadline says which THD definition the lab reports (thd_f re the fundamental, or thd_r re the total).
+    const name = distortion.thdHeadline === 'thd_r' ? 'THD_R' : 'THD_F';
+    const summary = distortion.thdHeadline === 'thd_r' ? distortion.thdR : distortion.thdF;
+    line(`${name} at reference`, distortionValue(summary?.atReference));
+    line(`${name} maximum`, distortionValue(summary?.maximum));
+  }
+  line('delay', `${fixed(figures.delayMs, 3)} ms, polarity ${figures.polarity ?? 'n/a'}`);
+  line('verdict', analysis.verdict ?? 'none (no tolerance mask)');
+  for (const warning of analysis.warnings ?? []) console.log(`  warning ${warning.code}: ${warning.message}`);
   return 0;
 }
 

@@ -10,13 +10,14 @@ The loop: create a sweep stimulus -> download its WAV -> (the rig plays it and r
 capture -> ask for an analysis and wait for it -> print the headline figures and the verdict.
 
 Every POST that creates something carries an Idempotency-Key. If the line drops and the script retries, it
-sends the *same* key, so the server replays its first answer instead of creating a second capture or
+sends the *same* key, so the server replays its first answer instead of creating a second stimulus, capture or
 analysis. A new key is made only for a genuinely new request.
 """
 
 import base64
 import hashlib
 import hmac
+import http.client
 import json
 import os
 import sys
@@ -27,34 +28,30 @@ import urllib.request
 import uuid
 
 # --- What this rig measures. Edit for your set-up. ----------------------------------------------------------
-# The capture you upload must be a recording of exactly this stimulus (same rate, length and sweep).
+# The capture you upload must be a recording of exactly this stimulus (same rate, length and sweep): the server
+# regenerates the sweep from these parameters to deconvolve the capture.
 STIMULUS = {
-    "kind": "sweep",
-    "startHz": 20,
-    "stopHz": 20000,
-    "durationSeconds": 2,
-    "sampleRateHz": 48000,
-    "levelDbfs": -12,
+    "type": "sweep",
+    "name": "KB-65 woofer sweep 20 Hz - 20 kHz",
+    "parameters": {"startHz": 20, "stopHz": 20000, "approximateDurationSeconds": 2, "sampleRateHz": 48000, "levelDbfs": -12},
 }
-CHANNELS = {"measurement": 0, "reference": 1}  # input channel roles in the capture WAV; drop "reference" if none
-CONDITIONS = {"distanceM": 1.0, "driveVoltageVrms": 2.83, "nominalImpedanceOhm": 8}
+CHANNELS = {"measurement": 0, "reference": 1}  # capture channel roles: microphone, loopback (None if none)
+CONDITIONS = {"distanceM": 1.0, "driveVoltageVrms": 2.83, "nominalImpedanceOhm": 8, "temperatureC": 20}
 DUT = {
-    "model": os.environ.get("SWEEPLINE_DUT_MODEL", "KB-65"),
+    "model": os.environ.get("SWEEPLINE_DUT_MODEL", "KB-65 woofer"),
     "serial": os.environ.get("SWEEPLINE_DUT_SERIAL", "KB65-24-000123"),
     "lot": os.environ.get("SWEEPLINE_DUT_LOT", "KB65-L24-07"),
 }
-OPTIONS = {}  # engine defaults; smoothing, gating, harmonic orders etc. are described in the API reference
-
-SAFETY_CAUTION = """\
-SAFETY before playing the stimulus:
-  * Start at a low level and raise it step by step; a full-scale sweep can destroy a tweeter.
-  * Never play test signals into headphones or an ear simulator while a person is wearing them.
-  * Cap the amplifier's drive voltage for each DUT (its rated power into its nominal impedance).
-  * Protect your own hearing near loud drivers; follow your lab's procedures and local regulations."""
+TAGS = ["line-1"]
+# response_and_distortion takes {"response": {...}, "distortion": {...}}; {} = engine defaults (see the API reference).
+OPTIONS = {}
+# Where the downloaded stimulus WAV is saved for the rig's player.
+STIMULUS_DIR = os.environ.get("SWEEPLINE_STIMULUS_DIR", ".")
 
 TERMINAL_STATES = ("succeeded", "failed", "canceled")
 POLL_DEADLINE_SECONDS = 300
 MAX_TRIES = 5  # per request, for dropped connections, 409 (still running), 429 and 5xx
+NETWORK_ERRORS = (urllib.error.URLError, http.client.HTTPException, ConnectionError, TimeoutError)
 
 
 class ApiError(Exception):
@@ -79,21 +76,23 @@ def request(method, url, api_key, body=None, headers=None):
     all_headers = {"Authorization": "Bearer " + api_key, "Accept": "application/json"}
     all_headers.update(headers or {})
     for attempt in range(1, MAX_TRIES + 1):
+        backoff = 2 ** (attempt - 1)  # 1, 2, 4, 8 s
         req = urllib.request.Request(url, data=body, method=method, headers=all_headers)
         try:
             with urllib.request.urlopen(req, timeout=60) as resp:
                 return resp.status, dict(resp.headers.items()), resp.read()
         except urllib.error.HTTPError as err:
             status, resp_headers, payload = err.code, dict(err.headers.items()), err.read()
+            # 409: the first try with this key is still being processed; 429: rate limit or quota; 5xx: server trouble.
             retryable = status in (409, 429) or status >= 500
             if not retryable or attempt == MAX_TRIES:
                 raise ApiError(status, parse_problem(payload))
-            wait = retry_after_seconds(resp_headers, default=2 ** attempt)
+            wait = retry_after_seconds(resp_headers, default=backoff)
             print("  HTTP %d, retrying in %ss (same Idempotency-Key)" % (status, wait), file=sys.stderr)
-        except (urllib.error.URLError, ConnectionError, TimeoutError) as err:
+        except NETWORK_ERRORS as err:
             if attempt == MAX_TRIES:
                 raise
-            wait = 2 ** attempt
+            wait = backoff
             print("  network error (%s), retrying in %ss (same Idempotency-Key)" % (err, wait), file=sys.stderr)
         time.sleep(wait)
     raise RuntimeError("unreachable")
@@ -107,12 +106,17 @@ def parse_problem(payload):
         return {"detail": payload[:200].decode("utf-8", "replace")}
 
 
+def header(headers, name):
+    return {k.lower(): v for k, v in headers.items()}.get(name.lower(), "")
+
+
 def retry_after_seconds(headers, default):
-    value = {k.lower(): v for k, v in headers.items()}.get("retry-after", "")
+    value = header(headers, "retry-after")
     return int(value) if value.isdigit() else default
 
 
 def post_json(base_url, api_key, path, document, extra_headers=None):
+    """POST a JSON document with a fresh Idempotency-Key; request() reuses that key for every retry of it."""
     headers = {"Content-Type": "application/json", "Idempotency-Key": str(uuid.uuid4())}
     headers.update(extra_headers or {})
     return request("POST", base_url + path, api_key, json.dumps(document).encode("utf-8"), headers)
@@ -139,17 +143,20 @@ def run(capture_path):
     # 1. The stimulus, defined by parameters; the server renders the same WAV every time.
     _, _, body = post_json(base_url, api_key, "/v1/stimuli", STIMULUS)
     stimulus = json.loads(body)
+    parameters = stimulus["parameters"]
     print("stimulus %s: %s-%s Hz sweep, %s s at %s Hz" % (
-        stimulus["id"], STIMULUS["startHz"], STIMULUS["stopHz"], STIMULUS["durationSeconds"], STIMULUS["sampleRateHz"]))
-    _, _, wav = request("GET", "%s/v1/stimuli/%s/audio?encoding=float32" % (base_url, stimulus["id"]), api_key,
-                        headers={"Accept": "audio/wav"})
-    stimulus_path = "stimulus-%s.wav" % stimulus["id"]
+        stimulus["id"], parameters["startHz"], parameters["stopHz"], stimulus["totalDurationSeconds"], parameters["sampleRateHz"]))
+    _, _, wav = request("GET", "%s/v1/stimuli/%s/audio?encoding=float32" % (base_url, urllib.parse.quote(stimulus["id"])),
+                        api_key, headers={"Accept": "audio/wav"})
+    stimulus_path = os.path.join(STIMULUS_DIR, "stimulus-%s.wav" % stimulus["id"])
     with open(stimulus_path, "wb") as handle:
         handle.write(wav)
     print("saved %s (%d bytes)" % (stimulus_path, len(wav)))
 
-    # 2. Playback and recording happen on the rig, outside this script.
-    print(SAFETY_CAUTION)
+    # 2. Playback and recording happen on the rig, outside this script. Show the server's cautions first.
+    print("SAFETY before playing the stimulus:")
+    for caution in stimulus.get("cautions") or []:
+        print("  * " + caution)
     print("-> the rig would now play %s through the DUT and record it; this script uses %s instead."
           % (stimulus_path, capture_path))
 
@@ -158,22 +165,25 @@ def run(capture_path):
     _, _, body = request("POST", base_url + "/v1/captures", api_key, form,
                          {"Content-Type": content_type, "Idempotency-Key": str(uuid.uuid4())})
     capture = json.loads(body)
-    print("capture %s uploaded (%d bytes)" % (capture["id"], len(capture_bytes)))
+    print("capture %s uploaded (%s ch, %s s)" % (capture["id"], capture["channelCount"], capture["durationSeconds"]))
+    for warning in capture.get("warnings") or []:
+        print("  capture warning %s: %s" % (warning.get("code"), warning.get("message")))
 
-    # 4. Ask for the analysis; Prefer: wait=10 (RFC 7240) returns the result at once when it is quick.
+    # 4. Ask for the analysis; Prefer: wait=10 (RFC 7240) returns the finished result at once (200) when it is
+    #    quick, else 202 with Location.
     analysis_request = {
         "kind": "response_and_distortion",
         "captureId": capture["id"],
         "stimulusId": stimulus["id"],
         "channels": CHANNELS,
         "conditions": CONDITIONS,
-        "dut": DUT,
         "options": OPTIONS,
+        "dut": DUT,
+        "tags": TAGS,
     }
     status, headers, body = post_json(base_url, api_key, "/v1/analyses", analysis_request, {"Prefer": "wait=10"})
     analysis = json.loads(body)
-    location = {k.lower(): v for k, v in headers.items()}.get("location") or "/v1/analyses/" + analysis["id"]
-    monitor_url = urllib.parse.urljoin(base_url + "/", location)
+    monitor_url = urllib.parse.urljoin(base_url + "/", header(headers, "location") or "/v1/analyses/" + analysis["id"])
 
     # 5. Not finished yet (202): poll the status monitor, as often as Retry-After says.
     deadline = time.monotonic() + POLL_DEADLINE_SECONDS
@@ -183,14 +193,39 @@ def run(capture_path):
         time.sleep(retry_after_seconds(headers, default=2))
         _, headers, body = request("GET", monitor_url, api_key)
         analysis = json.loads(body)
-        print("  analysis %s: %s" % (analysis["id"], analysis.get("status")))
+        print("  analysis %s: %s (%d %%)" % (analysis["id"], analysis.get("status"), round(100 * analysis.get("progress", 0))))
 
     return print_headline(analysis)
 
 
-def is_headline(name):
-    key = name.lower()
-    return any(word in key for word in ("sensitivity", "thd", "band", "limit"))
+# --- The headline: the figures a production line usually logs, from result.figures --------------------------
+
+def fixed(value, digits):
+    return ("%." + str(digits) + "f") % value if isinstance(value, (int, float)) else "n/a"
+
+
+def line(label, text):
+    print("  %-28s %s" % (label, text))
+
+
+def limit_point(point):
+    """A band edge: found at a frequency, or not inside the measured range (then the edge examined is not the limit)."""
+    status = (point or {}).get("status")
+    if status == "found":
+        return "%s Hz" % fixed(point["frequencyHz"], 1)
+    if status == "beyond_measured_range":
+        return "beyond %s Hz" % fixed(point["measuredEdgeHz"], 1)
+    if status == "outside_at_reference_band":
+        return "none (already outside at %s Hz)" % fixed(point["atHz"], 1)
+    return "n/a"
+
+
+def distortion_value(value):
+    """A distortion summary value: percent at a frequency, "<=" when it is only an upper bound (noise floor)."""
+    if not value or not isinstance(value.get("valuePercent"), (int, float)):
+        return "n/a"
+    bound = "<= " if value.get("isUpperBound") else ""
+    return "%s%s %% at %s Hz" % (bound, fixed(value["valuePercent"], 4), fixed(value["frequencyHz"], 1))
 
 
 def print_headline(analysis):
@@ -200,15 +235,26 @@ def print_headline(analysis):
         print("  %s: %s" % (error.get("title", "no result"), error.get("detail", "")))
         return 1
     result = analysis.get("result") or {}
-    figures = {k: v for k, v in (result.get("figures") or {}).items() if isinstance(v, (int, float, str))}
-    shown = {k: v for k, v in figures.items() if is_headline(k)} or figures
-    for name, value in shown.items():
-        print("  %-36s %s" % (name, value))
-    verdict = result.get("verdict", analysis.get("verdict"))
-    if isinstance(verdict, dict):
-        verdict = ", ".join("%s=%s" % item for item in verdict.items() if not isinstance(item[1], (list, dict)))
-    print("  %-36s %s" % ("verdict", verdict if verdict is not None else "none (no tolerance mask)"))
-    for warning in result.get("warnings") or []:
+    figures = result.get("figures") or {}
+    conventions = result.get("conventions") or {}
+    band_limits = figures.get("bandLimits")
+    if band_limits:
+        reference = band_limits["reference"]
+        line("reference level", "%s dB (%s)" % (fixed(reference["levelDb"], 2), reference["description"]))
+        for limit in band_limits["limits"]:
+            line("-%s dB points" % limit["dropDb"], "%s .. %s" % (limit_point(limit["lower"]), limit_point(limit["upper"])))
+    if conventions.get("magnitudeReference"):
+        line("magnitude reference", conventions["magnitudeReference"])
+    distortion = figures.get("distortion")
+    if distortion:
+        # thdHeadline says which THD definition the lab reports (thd_f re the fundamental, or thd_r re the total).
+        use_r = distortion.get("thdHeadline") == "thd_r"
+        name, summary = ("THD_R", distortion.get("thdR")) if use_r else ("THD_F", distortion.get("thdF"))
+        line("%s at reference" % name, distortion_value((summary or {}).get("atReference")))
+        line("%s maximum" % name, distortion_value((summary or {}).get("maximum")))
+    line("delay", "%s ms, polarity %s" % (fixed(figures.get("delayMs"), 3), figures.get("polarity", "n/a")))
+    line("verdict", analysis.get("verdict") or "none (no tolerance mask)")
+    for warning in analysis.get("warnings") or []:
         print("  warning %s: %s" % (warning.get("code"), warning.get("message")))
     return 0
 
@@ -291,7 +337,7 @@ def main(argv):
             for item in err.problem.get("errors") or []:
                 print("  %s: %s" % (item.get("pointer"), item.get("detail")), file=sys.stderr)
             return 1
-        except (urllib.error.URLError, ConnectionError, TimeoutError) as err:
+        except NETWORK_ERRORS as err:
             print("cannot reach %s: %s" % (os.environ.get("SWEEPLINE_BASE_URL"), getattr(err, "reason", err)), file=sys.stderr)
             return 1
     print(__doc__, file=sys.stderr)

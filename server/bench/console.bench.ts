@@ -7,10 +7,13 @@
  *    MariaDB): from the start of navigation until the first screen's heading is visible and its form accepts
  *    focus (sign-in for a visitor; overview for a signed-in analyst). Median of RUNS fresh page loads.
  * 3. Overlay draw: /compare?bench=overlay renders 10 synthetic curves × 2 000 points with the real compare
- *    chart; the page times uPlot creation to the end of its first draw with performance.now(). Target: < 50 ms.
+ *    chart; the page times uPlot creation to the end of its first draw with performance.now(), for the page's
+ *    first chart (code not yet compiled by the JIT) and for a second one after changing the normalisation.
+ *    Target: < 50 ms.
  */
 import { readdirSync, readFileSync, statSync } from 'node:fs';
 import path from 'node:path';
+import { cpus, loadavg } from 'node:os';
 import { gzipSync } from 'node:zlib';
 import { acquireTestDatabaseServer } from '../bootstrap/lib/instances.mjs';
 
@@ -74,14 +77,20 @@ async function main() {
     const page = await context.newPage();
     const analystMs: number[] = [];
     const overlayMs: number[] = [];
+    const warmOverlayMs: number[] = [];
     for (let run = 0; run < RUNS; run++) {
       const started = Date.now();
       await page.goto('/', { waitUntil: 'commit' });
       await page.getByRole('heading', { name: 'Overview' }).waitFor();
       analystMs.push(Date.now() - started);
       await page.goto('/compare?bench=overlay');
-      await page.waitForSelector('body[data-bench-overlay-drawn="true"]');
-      overlayMs.push(await page.evaluate(() => window.__sweeplineOverlayDrawMs ?? Number.NaN));
+      await page.waitForSelector('body[data-bench-overlay-draws="1"]');
+      // A second chart on the same page (normalisation changed): the same draw with the code already compiled.
+      await page.getByText('0 dB at 1 kHz').click();
+      await page.waitForSelector('body[data-bench-overlay-draws="2"]');
+      const draws = await page.evaluate(() => window.__sweeplineOverlayDrawsMs ?? []);
+      overlayMs.push(draws[0]);
+      warmOverlayMs.push(draws[1]);
     }
     await context.close();
 
@@ -97,7 +106,10 @@ async function main() {
     row('Time to interactive, visitor (sign-in)', `${median(visitorMs)} ms`, `median; min ${Math.min(...visitorMs)}, max ${Math.max(...visitorMs)}`);
     row('Time to interactive, analyst (overview)', `${median(analystMs)} ms`, `median; min ${Math.min(...analystMs)}, max ${Math.max(...analystMs)}`);
     const overlay = median(overlayMs);
-    row('Overlay 10 curves × 2 000 points (draw)', `${overlay.toFixed(1)} ms`, `target < ${OVERLAY_TARGET_MS} ms ${overlay < OVERLAY_TARGET_MS ? 'ok' : 'OVER'}; min ${Math.min(...overlayMs).toFixed(1)}, max ${Math.max(...overlayMs).toFixed(1)}`);
+    row('Overlay 10 curves × 2 000 points, first chart', `${overlay.toFixed(1)} ms`, `target < ${OVERLAY_TARGET_MS} ms ${overlay < OVERLAY_TARGET_MS ? 'ok' : 'OVER'}; min ${Math.min(...overlayMs).toFixed(1)}, max ${Math.max(...overlayMs).toFixed(1)}`);
+    const warm = median(warmOverlayMs);
+    row('Overlay 10 curves × 2 000 points, redrawn', `${warm.toFixed(1)} ms`, `target < ${OVERLAY_TARGET_MS} ms ${warm < OVERLAY_TARGET_MS ? 'ok' : 'OVER'}; min ${Math.min(...warmOverlayMs).toFixed(1)}, max ${Math.max(...warmOverlayMs).toFixed(1)}`);
+    console.log(`\nMachine: ${cpus().length} cores, load average ${loadavg().map((v) => v.toFixed(2)).join(' ')} (a busy machine stretches the times).`);
   } finally {
     await browser.close();
     await server.stop();

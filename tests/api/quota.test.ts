@@ -128,7 +128,9 @@ describe('quota thresholds', () => {
       ['analyses', 100, 5],
     ]);
     const events = (await context.deps.db.select().from(webhookEvents)).filter((event) => event.organisationId === user.organisationId);
-    expect(events.map((event) => JSON.parse(event.body).data)).toEqual([
+    // Rows carry no order of their own (both can share a millisecond): compare them sorted by threshold.
+    const eventData = events.map((event) => JSON.parse(event.body).data).sort((a, b) => a.thresholdPercent - b.thresholdPercent);
+    expect(eventData).toEqual([
       expect.objectContaining({ quota: 'analyses', thresholdPercent: 80, used: 4, limit: 5 }),
       expect.objectContaining({ quota: 'analyses', thresholdPercent: 100, used: 5, limit: 5 }),
     ]);

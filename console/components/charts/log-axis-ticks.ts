@@ -32,6 +32,19 @@ export function decadeFrequenciesHz(minHz: number, maxHz: number): number[] {
  * exact base-10 centre and named by its ISO 266 nominal frequency (20, 25, 31.5 … 20 000 Hz on an audio axis).
  */
 export function thirdOctaveGridLines(minHz: number, maxHz: number): FrequencyGridLine[] {
+  // Every axis pass asks again for the same range; keep the last few answers.
+  const key = `${minHz}|${maxHz}`;
+  const cached = gridCache.get(key);
+  if (cached) return cached;
+  const lines = computeGridLines(minHz, maxHz);
+  if (gridCache.size > 16) gridCache.clear();
+  gridCache.set(key, lines);
+  return lines;
+}
+
+const gridCache = new Map<string, FrequencyGridLine[]>();
+
+function computeGridLines(minHz: number, maxHz: number): FrequencyGridLine[] {
   const lowestHz = minHz / 1.13;
   const highestHz = maxHz * 1.13;
   return fractionalOctaveBands(3, lowestHz, highestHz)

@@ -15,8 +15,8 @@ import { syntheticCurves } from '@console/features/compare/utils/synthetic-curve
 
 declare global {
   interface Window {
-    /** Set by the overlay benchmark page: ms from creating the chart to its first draw. */
-    __sweeplineOverlayDrawMs?: number;
+    /** Set by the overlay benchmark page: ms from creating the chart to its first draw, one entry per chart built. */
+    __sweeplineOverlayDrawsMs?: number[];
   }
 }
 
@@ -33,8 +33,8 @@ function BenchOverlay() {
         curves={curves}
         levelLabel="Level (dB, synthetic)"
         onFirstDraw={(ms) => {
-          window.__sweeplineOverlayDrawMs = ms;
-          document.body.dataset.benchOverlayDrawn = 'true';
+          window.__sweeplineOverlayDrawsMs = [...(window.__sweeplineOverlayDrawsMs ?? []), ms];
+          document.body.dataset.benchOverlayDraws = String(window.__sweeplineOverlayDrawsMs.length);
         }}
       />
     </Panel>

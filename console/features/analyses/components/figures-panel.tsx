@@ -9,11 +9,11 @@ const toneClass = { danger: 'text-danger-700 font-bold', warning: 'text-signal-8
 
 function Rows({ rows }: { rows: FigureRow[] }) {
   return (
-    <dl className="grid grid-cols-[minmax(0,1fr)_auto] gap-x-4 gap-y-1.5 text-sm">
+    <dl className="grid grid-cols-[minmax(6.5rem,42%)_minmax(0,1fr)] gap-x-3 gap-y-1.5 text-sm">
       {rows.map((row, i) => (
         <div key={`${row.label}-${i}`} className="contents">
           <dt className="text-ink-600">{row.label}</dt>
-          <dd className={cn('text-right font-mono text-ink-900 tabular', row.tone && toneClass[row.tone])}>
+          <dd className={cn('text-right font-mono text-xs leading-5 text-ink-900 tabular [overflow-wrap:anywhere]', row.tone && toneClass[row.tone])}>
             {row.value}
             {row.note && <div className="font-sans text-xs font-normal text-ink-500">{row.note}</div>}
           </dd>

@@ -1,5 +1,5 @@
 import { chartFills } from '@console/components/charts/chart-palette';
-import { formatFrequency } from '@console/components/charts/format-units';
+import { formatFrequency, formatMilliseconds } from '@console/components/charts/format-units';
 import type { Analysis } from '@shared/schemas/analyses';
 import { useMaskVersion } from '../api/get-mask-version';
 import { groupDelaySpec, impulseSpec, phaseSpec, responseSpec } from '../utils/response-plots';
@@ -55,7 +55,11 @@ export function ResponsePlots({ analysis, result }: { analysis: Analysis; result
       {impulse && (
         <PlotPanel
           title="Impulse response"
-          description={impulse.gateMs ? `${impulse.gated ? 'Gate' : 'Analysis window'} ${impulse.gateMs[0].toFixed(2)}–${impulse.gateMs[1].toFixed(2)} ms.` : undefined}
+          description={
+            impulse.gateMs
+              ? `${impulse.gated ? 'Gate' : 'Analysis window (no gate)'} from ${formatMilliseconds(impulse.gateMs[0])} to ${formatMilliseconds(impulse.gateMs[1])}; the plot shows the part around the peak.`
+              : undefined
+          }
           spec={impulseSpec(impulse)}
           summary="Impulse response against time, scaled to its peak, with the time window drawn."
           heightPx={240}

@@ -98,15 +98,17 @@ export function groupDelaySpec(view: ResponseView): ChartSpec | null {
 
 /**
  * The impulse response scaled to its peak, with the window the spectrum was taken through. The time axis
- * centres on the peak (a few ms before it, up to the window end but at most 50 ms after), where the detail is.
+ * centres on the peak (a few ms before it; with a gate up to just past its end, at most 50 ms), where the detail is.
  */
 export function impulseSpec(view: ImpulseView): ChartSpec {
   const peak = view.amplitude.reduce((max, v) => Math.max(max, Math.abs(v)), 0) || 1;
   const first = view.timeMs[0];
   const last = view.timeMs[view.timeMs.length - 1];
   const peakMs = view.peakMs ?? first;
-  const beforeMs = view.gateMs ? Math.max(2, 1.5 * (peakMs - view.gateMs[0])) : 2;
-  const afterMs = view.gateMs ? Math.min(50, Math.max(10, 1.2 * (view.gateMs[1] - peakMs))) : 20;
+  // Ungated, the analysis window spans the whole record; the first 20 ms after the peak hold what matters.
+  const gate = view.gated ? view.gateMs : null;
+  const beforeMs = gate ? Math.max(1, 1.5 * (peakMs - gate[0])) : 2;
+  const afterMs = gate ? Math.min(50, Math.max(5, 1.2 * (gate[1] - peakMs))) : 20;
   const fromMs = Math.max(first, peakMs - beforeMs);
   const toMs = Math.min(last, peakMs + afterMs);
   return {
