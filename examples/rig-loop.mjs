@@ -39,6 +39,8 @@ const TAGS = ['line-1'];
 const OPTIONS = {};
 // Where the downloaded stimulus WAV is saved for the rig's player.
 const STIMULUS_DIR = process.env.SWEEPLINE_STIMULUS_DIR ?? '.';
+// How long the analysis POST may wait for the result (Prefer: wait=N, at most 60 s); 0 = answer 202 at once and poll.
+const WAIT_SECONDS = process.env.SWEEPLINE_WAIT_SECONDS ?? '10';
 
 const TERMINAL_STATES = new Set(['succeeded', 'failed', 'canceled']);
 const POLL_DEADLINE_MS = 300_000;
@@ -114,7 +116,7 @@ async function run(capturePath) {
   // 1. The stimulus, defined by parameters; the server renders the same WAV every time.
   const stimulus = await (await postJson(apiKey, `${baseUrl}/v1/stimuli`, STIMULUS)).json();
   const { startHz, stopHz, sampleRateHz } = stimulus.parameters;
-  console.log(`stimulus ${stimulus.id}: ${startHz}-${stopHz} Hz sweep, ${stimulus.totalDurationSeconds} s at ${sampleRateHz} Hz`);
+  console.log(`stimulus ${stimulus.id}: ${startHz}-${stopHz} Hz sweep, ${stimulus.totalDurationSeconds.toFixed(3)} s at ${sampleRateHz} Hz`);
   const audio = await call(apiKey, `${baseUrl}/v1/stimuli/${encodeURIComponent(stimulus.id)}/audio?encoding=float32`, {
     headers: { accept: 'audio/wav' },
   });
@@ -138,11 +140,11 @@ async function run(capturePath) {
   const capture = await (
     await call(apiKey, `${baseUrl}/v1/captures`, { method: 'POST', headers: { 'idempotency-key': randomUUID() }, body: uploadForm })
   ).json();
-  console.log(`capture ${capture.id} uploaded (${capture.channelCount} ch, ${capture.durationSeconds} s)`);
+  console.log(`capture ${capture.id} uploaded (${capture.channelCount} ch, ${capture.durationSeconds.toFixed(3)} s)`);
   for (const warning of capture.warnings ?? []) console.log(`  capture warning ${warning.code}: ${warning.message}`);
 
-  // 4. Ask for the analysis; Prefer: wait=10 (RFC 7240) returns the finished result at once (200) when it is
-  //    quick, else 202 with Location.
+  // 4. Ask for the analysis; Prefer: wait=N (RFC 7240) returns the finished result at once (200) when it is
+  //    done within N seconds, else 202 with Location.
   const analysisRequest = {
     kind: 'response_and_distortion',
     captureId: capture.id,
@@ -153,7 +155,7 @@ async function run(capturePath) {
     dut: DUT,
     tags: TAGS,
   };
-  let response = await postJson(apiKey, `${baseUrl}/v1/analyses`, analysisRequest, { prefer: 'wait=10' });
+  let response = await postJson(apiKey, `${baseUrl}/v1/analyses`, analysisRequest, { prefer: `wait=${WAIT_SECONDS}` });
   let analysis = await response.json();
   const monitorUrl = new URL(response.headers.get('location') ?? `/v1/analyses/${analysis.id}`, `${baseUrl}/`).href;
 

@@ -7,33 +7,35 @@
 #   ./rig-loop.sh verify-webhook --body-file body.json   # check one received webhook (see below)
 #
 # Needs: bash, coreutils, sed, grep (all in a Debian base system) and curl; verify-webhook also needs openssl
-# (Debian: apt-get install curl openssl). JSON is read with jq when installed, else python3, else a sed
-# fallback that reads only top-level text fields (ids and status) and prints figures as raw JSON.
+# (Debian: apt-get install curl openssl). JSON is read with jq when installed, else python3; without either the
+# script still runs the loop and prints the analysis as raw JSON.
 #
 # The loop: create a sweep stimulus -> download its WAV -> (the rig plays it and records the DUT) -> upload the
 # capture -> ask for an analysis and wait for it -> print the headline figures and the verdict.
 #
 # Every POST that creates something carries an Idempotency-Key. If the line drops and the script retries, it
-# sends the *same* key, so the server replays its first answer instead of creating a second capture or
+# sends the *same* key, so the server replays its first answer instead of creating a second stimulus, capture or
 # analysis. A new key is made only for a genuinely new request.
 set -euo pipefail
 set -f # no globbing: signature lists and JSON pass through unquoted word splitting below
+export LC_NUMERIC=C # printf '%.2f' with a decimal point whatever the locale
 
 # --- What this rig measures. Edit for your set-up. ------------------------------------------------------------
-# The capture you upload must be a recording of exactly this stimulus (same rate, length and sweep).
-STIMULUS_JSON='{"kind":"sweep","startHz":20,"stopHz":20000,"durationSeconds":2,"sampleRateHz":48000,"levelDbfs":-12}'
-CHANNELS_JSON='{"measurement":0,"reference":1}' # input channel roles in the capture WAV; drop reference if none
-CONDITIONS_JSON='{"distanceM":1.0,"driveVoltageVrms":2.83,"nominalImpedanceOhm":8}'
-DUT_MODEL=${SWEEPLINE_DUT_MODEL:-KB-65}
+# The capture you upload must be a recording of exactly this stimulus (same rate, length and sweep): the server
+# regenerates the sweep from these parameters to deconvolve the capture.
+STIMULUS_JSON='{"type":"sweep","name":"KB-65 woofer sweep 20 Hz - 20 kHz","parameters":{"startHz":20,"stopHz":20000,"approximateDurationSeconds":2,"sampleRateHz":48000,"levelDbfs":-12}}'
+CHANNELS_JSON='{"measurement":0,"reference":1}' # capture channel roles: microphone, loopback (null if none)
+CONDITIONS_JSON='{"distanceM":1.0,"driveVoltageVrms":2.83,"nominalImpedanceOhm":8,"temperatureC":20}'
+DUT_MODEL=${SWEEPLINE_DUT_MODEL:-KB-65 woofer}
 DUT_SERIAL=${SWEEPLINE_DUT_SERIAL:-KB65-24-000123}
 DUT_LOT=${SWEEPLINE_DUT_LOT:-KB65-L24-07}
-OPTIONS_JSON='{}' # engine defaults; smoothing, gating, harmonic orders etc. are described in the API reference
-
-SAFETY_CAUTION='SAFETY before playing the stimulus:
-  * Start at a low level and raise it step by step; a full-scale sweep can destroy a tweeter.
-  * Never play test signals into headphones or an ear simulator while a person is wearing them.
-  * Cap the amplifier'"'"'s drive voltage for each DUT (its rated power into its nominal impedance).
-  * Protect your own hearing near loud drivers; follow your lab'"'"'s procedures and local regulations.'
+TAGS_JSON='["line-1"]'
+# response_and_distortion takes {"response":{...},"distortion":{...}}; {} = engine defaults (see the API reference).
+OPTIONS_JSON='{}'
+# Where the downloaded stimulus WAV is saved for the rig's player.
+STIMULUS_DIR=${SWEEPLINE_STIMULUS_DIR:-.}
+# How long the analysis POST may wait for the result (Prefer: wait=N, at most 60 s); 0 = answer 202 at once and poll.
+WAIT_SECONDS=${SWEEPLINE_WAIT_SECONDS:-10}
 
 POLL_DEADLINE_SECONDS=300
 MAX_TRIES=5 # per request, for dropped connections, 409 (still running), 429 and 5xx
@@ -52,46 +54,66 @@ new_idempotency_key() {
   fi
 }
 
-# json_get FILE PATH: one value at a dotted PATH (e.g. .id, .error.title); empty when absent.
+# json_get FILE PATH: one value at a dotted PATH (e.g. .id, .error.title); empty when absent. Arrays print one
+# item per line.
 json_get() {
-  if have jq; then jq -r "$2 // empty" "$1"
+  if have jq; then jq -r "$2 // empty | if type==\"array\" then .[] else . end" "$1"
   elif have python3; then
     python3 -c 'import json,sys
 v=json.load(open(sys.argv[1]))
 for k in [p for p in sys.argv[2].split(".") if p]:
     v=v.get(k) if isinstance(v,dict) else None
-print("" if v is None else (json.dumps(v) if isinstance(v,(dict,list)) else v))' "$1" "$2"
+for x in (v if isinstance(v,list) else [] if v is None else [v]):
+    print(json.dumps(x) if isinstance(x,(dict,list)) else x)' "$1" "$2"
   else # last resort: the first "key":"text" pair anywhere in the document
     local key=${2##*.}
     sed -n 's/.*"'"$key"'"[[:space:]]*:[[:space:]]*"\([^"]*\)".*/\1/p' "$1" | head -n 1
   fi
 }
 
-# json_summary FILE figures|verdict|warnings: lines for the headline. figures: "name<TAB>value" per number or
-# text in .result.figures; verdict: one line (key=value pairs when it is an object); warnings: "code: message".
-json_summary() {
+# headline_records FILE: the headline figures of a finished analysis as tab-separated records, one per line:
+#   R levelDb description | L dropDb lowerStatus lowerValue upperStatus upperValue | M magnitudeReference |
+#   T name summary valuePercent frequencyHz isUpperBound | D delayMs polarity | V verdict | W code message
+# A band edge's value is frequencyHz (found), measuredEdgeHz (beyond_measured_range) or atHz (outside_at_reference_band).
+headline_records() {
   if have jq; then
-    case $2 in
-      figures) jq -r '.result.figures // {} | to_entries[] | select(.value|type=="number" or type=="string") | "\(.key)\t\(.value)"' "$1" ;;
-      verdict) jq -r '.result.verdict // .verdict // empty | if type=="object" then [to_entries[] | select(.value|type!="object" and type!="array") | "\(.key)=\(.value)"] | join(", ") else tostring end' "$1" ;;
-      warnings) jq -r '.result.warnings // [] | .[] | "\(.code): \(.message)"' "$1" ;;
-    esac
+    jq -r '
+      def edge: [.status, (.frequencyHz // .measuredEdgeHz // .atHz)];
+      (.result.figures // {}) as $f | (.result.conventions // {}) as $c |
+      (if $f.bandLimits then
+         ["R", $f.bandLimits.reference.levelDb, $f.bandLimits.reference.description],
+         ($f.bandLimits.limits[] | ["L", .dropDb] + (.lower | edge) + (.upper | edge))
+       else empty end),
+      (if $c.magnitudeReference then ["M", $c.magnitudeReference] else empty end),
+      (if $f.distortion then
+         ($f.distortion.thdHeadline == "thd_r") as $r | (if $r then "THD_R" else "THD_F" end) as $name |
+         (if $r then $f.distortion.thdR else $f.distortion.thdF end) as $s |
+         (["atReference", "maximum"][] as $k | ["T", $name, $k, $s[$k].valuePercent, $s[$k].frequencyHz, $s[$k].isUpperBound])
+       else empty end),
+      ["D", $f.delayMs, $f.polarity],
+      ["V", .verdict],
+      (.warnings // [] | .[] | ["W", .code, .message])
+      | map(if . == null then "null" else tostring end) | join("\t")' "$1"
   elif have python3; then
     python3 -c 'import json,sys
-a=json.load(open(sys.argv[1])); r=a.get("result") or {}; what=sys.argv[2]
-if what=="figures":
-    [print("%s\t%s" % (k, v)) for k, v in (r.get("figures") or {}).items() if isinstance(v, (int, float, str))]
-elif what=="verdict":
-    v=r.get("verdict", a.get("verdict"))
-    if isinstance(v, dict): v=", ".join("%s=%s" % (k, x) for k, x in v.items() if not isinstance(x, (dict, list)))
-    print("" if v is None else v)
-else:
-    [print("%s: %s" % (w.get("code"), w.get("message"))) for w in r.get("warnings") or []]' "$1" "$2"
+a=json.load(open(sys.argv[1])); r=a.get("result") or {}; f=r.get("figures") or {}; c=r.get("conventions") or {}
+out=lambda *xs: print("\t".join("null" if x is None else str(x).lower() if isinstance(x,bool) else str(x) for x in xs))
+edge=lambda p: [p.get("status"), p.get("frequencyHz", p.get("measuredEdgeHz", p.get("atHz")))]
+b=f.get("bandLimits")
+if b:
+    out("R", b["reference"]["levelDb"], b["reference"]["description"])
+    for l in b["limits"]: out("L", l["dropDb"], *(edge(l["lower"]) + edge(l["upper"])))
+if c.get("magnitudeReference"): out("M", c["magnitudeReference"])
+d=f.get("distortion")
+if d:
+    use_r=d.get("thdHeadline")=="thd_r"; s=(d.get("thdR") if use_r else d.get("thdF")) or {}
+    for k in ("atReference","maximum"):
+        v=s.get(k) or {}; out("T", "THD_R" if use_r else "THD_F", k, v.get("valuePercent"), v.get("frequencyHz"), v.get("isUpperBound"))
+out("D", f.get("delayMs"), f.get("polarity"))
+out("V", a.get("verdict"))
+for w in a.get("warnings") or []: out("W", w.get("code"), w.get("message"))' "$1"
   else
-    case $2 in
-      figures) echo "raw	$(tr -d '\n' < "$1")" ;;
-      verdict) echo "(in the raw JSON above)" ;;
-    esac
+    return 1
   fi
 }
 
@@ -102,23 +124,25 @@ header_value() { # header_value NAME: last value of a response header of the las
 # api METHOD PATH_OR_URL OUTFILE [curl args...]: one exchange, retried with the same arguments (and so the same
 # Idempotency-Key) after network errors, 409, 429 and 5xx. Sets STATUS; exits on any other error.
 api() {
-  local method=$1 target=$2 out=$3 attempt=1 wait
+  local method=$1 target=$2 out=$3 attempt=1 wait backoff
   shift 3
   case $target in http://*|https://*) ;; *) target="$SWEEPLINE_BASE_URL$target" ;; esac
   while :; do
+    backoff=$((2 ** (attempt - 1))) # 1, 2, 4, 8 s
     : > "$WORK/headers"
     if STATUS=$(curl -sS -X "$method" -o "$out" -D "$WORK/headers" -w '%{http_code}' --max-time 60 \
       -H @"$WORK/auth-header" -H 'Accept: application/json' "$@" "$target"); then
       case $STATUS in
         2??) return 0 ;;
+        # 409: the first try with this key is still being processed; 429: rate limit or quota; 5xx: server trouble.
         409|429|5??) [ "$attempt" -lt "$MAX_TRIES" ] || { print_problem "$out"; exit 1; }
-                     wait=$(header_value retry-after); [[ $wait =~ ^[0-9]+$ ]] || wait=$((2 ** attempt))
+                     wait=$(header_value retry-after); [[ $wait =~ ^[0-9]+$ ]] || wait=$backoff
                      echo "  HTTP $STATUS, retrying in ${wait}s (same Idempotency-Key)" >&2 ;;
         *) print_problem "$out"; exit 1 ;;
       esac
     else
       [ "$attempt" -lt "$MAX_TRIES" ] || { echo "cannot reach $SWEEPLINE_BASE_URL" >&2; exit 1; }
-      wait=$((2 ** attempt)); echo "  network error, retrying in ${wait}s (same Idempotency-Key)" >&2
+      wait=$backoff; echo "  network error, retrying in ${wait}s (same Idempotency-Key)" >&2
     fi
     attempt=$((attempt + 1)); sleep "$wait"
   done
@@ -135,6 +159,10 @@ print_problem() { # the problem+json body of a refused request: title, detail an
 
 require_id() { [[ $1 =~ ^[A-Za-z0-9_-]+$ ]] || die "unexpected id from the server: '$1'"; printf '%s' "$1"; }
 
+json_text() { # json_text TEXT: TEXT as a JSON string (quotes and backslashes escaped)
+  printf '"%s"' "$(printf '%s' "$1" | sed 's/\\/\\\\/g; s/"/\\"/g')"
+}
+
 run() {
   local capture=$1
   [ -r "$capture" ] || die "cannot read capture file $capture"
@@ -148,31 +176,29 @@ run() {
   api POST /v1/stimuli "$WORK/stimulus.json" -H 'Content-Type: application/json' \
     -H "Idempotency-Key: $(new_idempotency_key)" --data-binary "$STIMULUS_JSON"
   local stimulus_id; stimulus_id=$(require_id "$(json_get "$WORK/stimulus.json" .id)")
-  echo "stimulus $stimulus_id created"
-  local stimulus_wav="stimulus-$stimulus_id.wav"
+  echo "stimulus $stimulus_id: $(json_get "$WORK/stimulus.json" .parameters.startHz)-$(json_get "$WORK/stimulus.json" .parameters.stopHz) Hz sweep, $(fixed "$(json_get "$WORK/stimulus.json" .totalDurationSeconds)" 3) s at $(json_get "$WORK/stimulus.json" .sampleRateHz) Hz"
+  local stimulus_wav="$STIMULUS_DIR/stimulus-$stimulus_id.wav"
   api GET "/v1/stimuli/$stimulus_id/audio?encoding=float32" "$stimulus_wav" -H 'Accept: audio/wav'
   echo "saved $stimulus_wav ($(wc -c < "$stimulus_wav") bytes)"
 
-  # 2. Playback and recording happen on the rig, outside this script.
-  echo "$SAFETY_CAUTION"
+  # 2. Playback and recording happen on the rig, outside this script. Show the server's cautions first.
+  echo "SAFETY before playing the stimulus:"
+  json_get "$WORK/stimulus.json" .cautions | sed 's/^/  * /'
   echo "-> the rig would now play $stimulus_wav through the DUT and record it; this script uses $capture instead."
 
   # 3. Upload the capture. One key for this upload, reused by every retry of it.
   api POST /v1/captures "$WORK/capture.json" -H "Idempotency-Key: $(new_idempotency_key)" \
     -F "file=@$capture;type=audio/wav"
   local capture_id; capture_id=$(require_id "$(json_get "$WORK/capture.json" .id)")
-  echo "capture $capture_id uploaded ($(wc -c < "$capture") bytes)"
+  echo "capture $capture_id uploaded ($(json_get "$WORK/capture.json" .channelCount) ch, $(fixed "$(json_get "$WORK/capture.json" .durationSeconds)" 3) s)"
 
-  # 4. Ask for the analysis; Prefer: wait=10 (RFC 7240) returns the result at once when it is quick.
-  # Ids were checked above; the DUT strings are JSON-escaped for quotes and backslashes.
-  local esc='s/\\/\\\\/g; s/"/\\"/g'
-  local dut_json
-  dut_json=$(printf '{"model":"%s","serial":"%s","lot":"%s"}' \
-    "$(sed "$esc" <<<"$DUT_MODEL")" "$(sed "$esc" <<<"$DUT_SERIAL")" "$(sed "$esc" <<<"$DUT_LOT")")
-  local analysis_json
-  analysis_json=$(printf '{"kind":"response_and_distortion","captureId":"%s","stimulusId":"%s","channels":%s,"conditions":%s,"dut":%s,"options":%s}' \
-    "$capture_id" "$stimulus_id" "$CHANNELS_JSON" "$CONDITIONS_JSON" "$dut_json" "$OPTIONS_JSON")
-  api POST /v1/analyses "$WORK/analysis.json" -H 'Content-Type: application/json' -H 'Prefer: wait=10' \
+  # 4. Ask for the analysis; Prefer: wait=N (RFC 7240) returns the finished result at once (200) when it is
+  #    done within N seconds, else 202 with Location. Ids were checked above; the DUT strings are JSON-escaped.
+  local dut_json analysis_json
+  dut_json="{\"model\":$(json_text "$DUT_MODEL"),\"serial\":$(json_text "$DUT_SERIAL"),\"lot\":$(json_text "$DUT_LOT")}"
+  analysis_json=$(printf '{"kind":"response_and_distortion","captureId":"%s","stimulusId":"%s","channels":%s,"conditions":%s,"options":%s,"dut":%s,"tags":%s}' \
+    "$capture_id" "$stimulus_id" "$CHANNELS_JSON" "$CONDITIONS_JSON" "$OPTIONS_JSON" "$dut_json" "$TAGS_JSON")
+  api POST /v1/analyses "$WORK/analysis.json" -H 'Content-Type: application/json' -H "Prefer: wait=$WAIT_SECONDS" \
     -H "Idempotency-Key: $(new_idempotency_key)" --data-binary "$analysis_json"
   local analysis_id; analysis_id=$(require_id "$(json_get "$WORK/analysis.json" .id)")
   local monitor; monitor=$(header_value location)
@@ -193,23 +219,48 @@ run() {
   print_headline "$WORK/analysis.json" "$analysis_id" "$status"
 }
 
+# --- The headline: the figures a production line usually logs, from result.figures ----------------------------
+
+fixed() { # fixed VALUE DIGITS: a number with DIGITS decimals, or n/a
+  if [[ $1 =~ ^-?[0-9.]+([eE][-+]?[0-9]+)?$ ]]; then printf "%.${2}f" "$1"; else printf 'n/a'; fi
+}
+
+edge() { # edge STATUS VALUE: a band edge; not found inside the measured range means the edge examined is not the limit
+  case $1 in
+    found) printf '%s Hz' "$(fixed "$2" 1)" ;;
+    beyond_measured_range) printf 'beyond %s Hz' "$(fixed "$2" 1)" ;;
+    outside_at_reference_band) printf 'none (already outside at %s Hz)' "$(fixed "$2" 1)" ;;
+    *) printf 'n/a' ;;
+  esac
+}
+
+line() { printf '  %-28s %s\n' "$1" "$2"; }
+
 print_headline() {
-  local file=$1 id=$2 status=$3 name value shown=0
+  local file=$1 id=$2 status=$3 records kind a b c d e
   echo "analysis $id $status"
   if [ "$status" != succeeded ]; then
     echo "  $(json_get "$file" .error.title): $(json_get "$file" .error.detail)"
     return 1
   fi
-  local figures; figures=$(json_summary "$file" figures)
-  while IFS=$'\t' read -r name value; do
-    if [[ ${name,,} =~ sensitivity|thd|band|limit ]]; then printf '  %-36s %s\n' "$name" "$value"; shown=1; fi
-  done <<<"$figures"
-  if [ "$shown" = 0 ] && [ -n "$figures" ]; then # no headline names matched: show every figure
-    while IFS=$'\t' read -r name value; do printf '  %-36s %s\n' "$name" "$value"; done <<<"$figures"
+  if ! records=$(headline_records "$file"); then # neither jq nor python3: show the analysis as it came
+    cat "$file"; echo
+    return 0
   fi
-  local verdict; verdict=$(json_summary "$file" verdict)
-  printf '  %-36s %s\n' verdict "${verdict:-none (no tolerance mask)}"
-  json_summary "$file" warnings | sed 's/^/  warning /'
+  while IFS=$'\t' read -r kind a b c d e; do
+    case $kind in
+      R) line 'reference level' "$(fixed "$a" 2) dB ($b)" ;;
+      L) line "-$a dB points" "$(edge "$b" "$c") .. $(edge "$d" "$e")" ;;
+      M) line 'magnitude reference' "$a" ;;
+      T) # thdHeadline says which THD definition the lab reports (THD_F re the fundamental, THD_R re the total).
+         local label='at reference'; [ "$b" = maximum ] && label=maximum
+         if [ "$c" = null ]; then line "$a $label" 'n/a'
+         else line "$a $label" "$([ "$e" = true ] && printf '<= ')$(fixed "$c" 4) % at $(fixed "$d" 1) Hz"; fi ;;
+      D) line delay "$(fixed "$a" 3) ms, polarity $b" ;;
+      V) line verdict "$([ "$a" = null ] && echo 'none (no tolerance mask)' || echo "$a")" ;;
+      W) echo "  warning $a: $b" ;;
+    esac
+  done <<<"$records"
 }
 
 # --- Webhooks (Standard Webhooks v1.0.0) -------------------------------------------------------------------------

@@ -47,6 +47,8 @@ TAGS = ["line-1"]
 OPTIONS = {}
 # Where the downloaded stimulus WAV is saved for the rig's player.
 STIMULUS_DIR = os.environ.get("SWEEPLINE_STIMULUS_DIR", ".")
+# How long the analysis POST may wait for the result (Prefer: wait=N, at most 60 s); 0 = answer 202 at once and poll.
+WAIT_SECONDS = os.environ.get("SWEEPLINE_WAIT_SECONDS", "10")
 
 TERMINAL_STATES = ("succeeded", "failed", "canceled")
 POLL_DEADLINE_SECONDS = 300
@@ -144,7 +146,7 @@ def run(capture_path):
     _, _, body = post_json(base_url, api_key, "/v1/stimuli", STIMULUS)
     stimulus = json.loads(body)
     parameters = stimulus["parameters"]
-    print("stimulus %s: %s-%s Hz sweep, %s s at %s Hz" % (
+    print("stimulus %s: %s-%s Hz sweep, %.3f s at %s Hz" % (
         stimulus["id"], parameters["startHz"], parameters["stopHz"], stimulus["totalDurationSeconds"], parameters["sampleRateHz"]))
     _, _, wav = request("GET", "%s/v1/stimuli/%s/audio?encoding=float32" % (base_url, urllib.parse.quote(stimulus["id"])),
                         api_key, headers={"Accept": "audio/wav"})
@@ -165,12 +167,12 @@ def run(capture_path):
     _, _, body = request("POST", base_url + "/v1/captures", api_key, form,
                          {"Content-Type": content_type, "Idempotency-Key": str(uuid.uuid4())})
     capture = json.loads(body)
-    print("capture %s uploaded (%s ch, %s s)" % (capture["id"], capture["channelCount"], capture["durationSeconds"]))
+    print("capture %s uploaded (%s ch, %.3f s)" % (capture["id"], capture["channelCount"], capture["durationSeconds"]))
     for warning in capture.get("warnings") or []:
         print("  capture warning %s: %s" % (warning.get("code"), warning.get("message")))
 
-    # 4. Ask for the analysis; Prefer: wait=10 (RFC 7240) returns the finished result at once (200) when it is
-    #    quick, else 202 with Location.
+    # 4. Ask for the analysis; Prefer: wait=N (RFC 7240) returns the finished result at once (200) when it is
+    #    done within N seconds, else 202 with Location.
     analysis_request = {
         "kind": "response_and_distortion",
         "captureId": capture["id"],
@@ -181,7 +183,7 @@ def run(capture_path):
         "dut": DUT,
         "tags": TAGS,
     }
-    status, headers, body = post_json(base_url, api_key, "/v1/analyses", analysis_request, {"Prefer": "wait=10"})
+    status, headers, body = post_json(base_url, api_key, "/v1/analyses", analysis_request, {"Prefer": "wait=" + WAIT_SECONDS})
     analysis = json.loads(body)
     monitor_url = urllib.parse.urljoin(base_url + "/", header(headers, "location") or "/v1/analyses/" + analysis["id"])
 

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { isEngineError } from './errors';
+import { thrownBy } from './test-support/thrown-by';
 import { measureWindowSidelobes, WINDOW_DEFINITIONS, windowFigures, windowSamples, type WindowName } from './windows';
 
 // Harris, "On the use of windows for harmonic analysis with the DFT", Proc. IEEE 66(1):51–83, 1978, Table 1:
@@ -52,14 +53,6 @@ describe('window figures of merit', () => {
       () => windowSamples('hann', 2.5),
       () => measureWindowSidelobes('hann', { padFactor: 3 }),
     ];
-    for (const attempt of attempts) {
-      let caught: unknown;
-      try {
-        attempt();
-      } catch (error) {
-        caught = error;
-      }
-      expect(isEngineError(caught)).toBe(true);
-    }
+    for (const attempt of attempts) expect(isEngineError(thrownBy(attempt))).toBe(true);
   });
 });

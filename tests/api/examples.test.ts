@@ -6,19 +6,19 @@ import type { AddressInfo } from 'node:net';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { promisify } from 'node:util';
-import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { designSynchronizedSweep, renderSweep } from '@shared/dsp';
 import { seedDemo } from '@server/db/seed/seed';
+import { DEMO_API_KEY, DEMO_USERS } from '@server/db/seed/demo-scenario';
 import { startJobRunner, type JobRunner } from '@server/jobs/job-runner';
 import { biquadFilter, biquadMagnitudeDb, wav } from './analyses-fixtures';
-import { bearer } from '../support/actors';
+import { browserAgent, createApiKey, type Agent } from '../support/actors';
 import { createTestContext, type TestContext } from '../support/test-app';
 
 /**
  * The rig examples in examples/ run as child processes against a live server on 127.0.0.1 with the demo
- * organisation and its demo API key, as a rig developer runs them against `npm start`. The server drops the
- * connection on the first answer to each creating POST, so every example must retry with the same
+ * organisation and keys carrying the demo key's scopes, as a rig developer runs them against `npm start`. The
+ * server drops the connection on the first answer to each creating POST, so every example must retry with the same
  * Idempotency-Key and still create exactly one stimulus, capture and analysis.
  */
 const execFileAsync = promisify(execFile);
@@ -61,7 +61,7 @@ let context: TestContext;
 let runner: JobRunner;
 let server: http.Server;
 let baseUrl: string;
-let apiKey: string;
+let owner: Agent;
 let workDir: string;
 let capturePath: string;
 
@@ -77,7 +77,11 @@ beforeAll(async () => {
   });
   const demo = await seedDemo(context.deps);
   expect(demo.apiKeySecret).toBeTruthy();
-  apiKey = demo.apiKeySecret!;
+  // The demo owner's console session reads what the examples created (its rate limit is not the rig key's).
+  const ownerUser = DEMO_USERS.find((user) => user.role === 'owner')!;
+  owner = browserAgent(context);
+  const signedIn = await owner.post('/v1/auth/sign-in').send({ email: ownerUser.email, password: ownerUser.password });
+  expect(signedIn.status, JSON.stringify(signedIn.body)).toBe(200);
   runner = startJobRunner(context.deps, { threads: 1, pollMs: 50 });
 
   server = http.createServer((req, res) => {
@@ -112,26 +116,29 @@ afterAll(async () => {
   if (workDir) await rm(workDir, { recursive: true, force: true });
 });
 
-const api = () => request(context.app);
 async function count(path: string): Promise<number> {
-  const response = await api().get(`${path}?limit=100`).set(bearer(apiKey));
+  const response = await owner.get(`${path}?limit=100`);
   expect(response.status, JSON.stringify(response.body)).toBe(200);
   return (response.body as { data: unknown[] }).data.length;
 }
 
-async function runExample(command: string, args: string[]) {
+/**
+ * One example run with its own key carrying the demo key's scopes: six runs within a minute would otherwise
+ * share one key's per-minute request limit.
+ */
+async function runExample(command: string, args: string[], waitSeconds: number) {
+  const { secret: apiKey } = await createApiKey(owner, DEMO_API_KEY.scopes, { name: `KB-65 line 1 rig ${waitSeconds}` });
   dropped = new Set();
   droppedCount = 0;
   const before = { stimuli: await count('/v1/stimuli'), captures: await count('/v1/captures'), analyses: await count('/v1/analyses') };
   const result = await execFileAsync(command, [...args, 'run', capturePath], {
     cwd: workDir,
     timeout: CHILD_TIMEOUT_MS,
-    env: { ...process.env, SWEEPLINE_BASE_URL: baseUrl, SWEEPLINE_API_KEY: apiKey, SWEEPLINE_STIMULUS_DIR: workDir },
+    env: { ...process.env, SWEEPLINE_BASE_URL: baseUrl, SWEEPLINE_API_KEY: apiKey, SWEEPLINE_STIMULUS_DIR: workDir, SWEEPLINE_WAIT_SECONDS: String(waitSeconds) },
   }).catch((error: { code?: number; stdout?: string; stderr?: string; message: string }) => {
     throw new Error(`${command} exited ${error.code}: ${error.message}\nstdout:\n${error.stdout}\nstderr:\n${error.stderr}`);
   });
   const stdout = result.stdout;
-  process.stderr.write(`DEBUG\n${stdout}\n${result.stderr}\n`);
   const after = { stimuli: await count('/v1/stimuli'), captures: await count('/v1/captures'), analyses: await count('/v1/analyses') };
   return { stdout, stderr: result.stderr, before, after };
 }
@@ -151,12 +158,18 @@ const examples = [
   { name: 'bash examples/rig-loop.sh', command: 'bash', args: ['examples/rig-loop.sh'], skip: curlMissing },
 ];
 
+// wait=10: the analysis POST answers 200 with the result; wait=0: it answers 202 and the example polls Location.
+const waits = [
+  { waitSeconds: 10, path: 'Prefer: wait=10, result in the answer' },
+  { waitSeconds: 0, path: 'Prefer: wait=0, 202 then polling' },
+];
+
 describe('rig examples against a live server', () => {
-  for (const example of examples) {
-    const title = example.skip ? `${example.name} (skipped: curl is not installed)` : example.name;
+  for (const example of examples) for (const { waitSeconds, path } of waits) {
+    const title = `${example.name} (${path})${example.skip ? ' skipped: curl is not installed' : ''}`;
     it.skipIf(example.skip)(title, { timeout: 150_000 }, async () => {
       const args = example.args.map((arg) => join(process.cwd(), arg));
-      const { stdout, stderr, before, after } = await runExample(example.command, args);
+      const { stdout, stderr, before, after } = await runExample(example.command, args, waitSeconds);
 
       // Idempotency: three dropped answers were retried, and each creating request made exactly one object.
       expect(droppedCount).toBe(3);
@@ -170,11 +183,16 @@ describe('rig examples against a live server', () => {
       expect(stdout).toMatch(/ear simulator|hearing/i);
 
       const analysisId = parse(stdout, /^analysis (ana_\w+) succeeded$/m)[1];
-      const analysis = (await api().get(`/v1/analyses/${analysisId}`).set(bearer(apiKey))).body;
+      if (waitSeconds === 0) expect(stdout).toMatch(new RegExp(`^  analysis ${analysisId}: (queued|running|succeeded)`, 'm'));
+      else expect(stdout).not.toMatch(/^  analysis ana_\w+: /m);
+      const analysis = (await owner.get(`/v1/analyses/${analysisId}`)).body;
       expect(analysis.status).toBe('succeeded');
       expect(analysis.kind).toBe('response_and_distortion');
       expect(analysis.dut).toEqual({ model: 'KB-65 woofer', serial: 'KB65-24-000123', lot: 'KB65-L24-07' });
-      const stimulus = (await api().get(`/v1/stimuli/${analysis.stimulusId}`).set(bearer(apiKey))).body;
+      expect(analysis.request).toMatchObject({ channels: { measurement: 0, reference: 1 }, conditions: { distanceM: 1, driveVoltageVrms: 2.83 } });
+      const capture = (await owner.get(`/v1/captures/${analysis.captureId}`)).body;
+      expect(capture).toMatchObject({ filename: 'kb65-24-000123.wav', channelCount: 2 });
+      const stimulus = (await owner.get(`/v1/stimuli/${analysis.stimulusId}`)).body;
       expect(stimulus.parameters).toMatchObject(SWEEP);
 
       // RBJ Audio EQ Cookbook low-pass: the printed reference level (1 kHz, re the loopback) and the upper −3 dB

@@ -4,7 +4,7 @@ import type { AnalysisResult } from '../result/types';
 import type { EngineWarning } from '../result/warnings';
 import { rejectUnknownKeys, requireNumberInRange, requireObject } from '../stimuli/parameter-checks';
 import { channelWarnings, requireCapture, type CaptureInput } from './capture-checks';
-import { resolveChannelIndex } from './curve-output-options';
+import { resolveChannelIndex } from './channel-options';
 
 /**
  * Calibrator capture → chain sensitivity (dBFS at 1 Pa). The tone analysis itself (frequency, level, stability,

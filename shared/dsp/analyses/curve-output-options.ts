@@ -111,7 +111,8 @@ function resolveNormalisation(value: unknown, field: string): NormalisationOptio
   return resolveReference(raw, field);
 }
 
-function resolveBandLimits(value: unknown, field: string): ResolvedBandLimits | null {
+/** Band limits (default on: [3, 6, 10] dB drops, ±3 dB range); null turns them off. */
+export function resolveBandLimits(value: unknown, field: string): ResolvedBandLimits | null {
   if (value === null) return null;
   const raw = value === undefined ? {} : requireObject(value, field);
   rejectUnknownKeys(raw, field, ['reference', 'dropsDb', 'toleranceDb', 'ignoreExcursionsNarrowerThanOctaves']);
@@ -194,15 +195,4 @@ export function resolveCurveOutputOptions(raw: Record<string, unknown>, field: s
     conditions,
     referTo,
   };
-}
-
-/** Validate an optional channel index against the capture's channel count. */
-export function resolveChannelIndex(value: unknown, field: string, channelCount: number, fallback: number | null): number | null {
-  if (value === undefined) return fallback;
-  if (value === null) return null;
-  const n = requireFiniteNumber(value, field);
-  if (!Number.isInteger(n) || n < 0 || n >= channelCount) {
-    throw new EngineError('channel_out_of_range', `${field} must be a channel index from 0 to ${channelCount - 1}, got ${n}.`, { field });
-  }
-  return n;
 }

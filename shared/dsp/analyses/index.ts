@@ -1,5 +1,7 @@
 export * from './capture-checks';
+export * from './channel-options';
 export * from './curve-output-options';
+export * from './response-common-options';
 export * from './sweep-response-options';
 export * from './sweep-response-types';
 export { analyzeSweepResponse } from './sweep-response';

@@ -2,15 +2,10 @@ import type { NormalisationSpec, ReferenceLevelSpec, SmoothingOptions } from '..
 import { EngineError } from '../errors';
 import type { ToleranceMask } from '../masks/mask-types';
 import { validateMask } from '../masks/validate-mask';
-import {
-  rejectUnknownKeys,
-  requireInteger,
-  requireNumberInRange,
-  requireObject,
-  requireOneOf,
-} from '../stimuli/parameter-checks';
-import { resolveReference, type BandLimitOptions, type NormalisationOption } from './curve-output-options';
+import { rejectUnknownKeys, requireNumberInRange, requireObject, requireOneOf } from '../stimuli/parameter-checks';
+import { resolveBandLimits, resolveReference, type BandLimitOptions, type NormalisationOption } from './curve-output-options';
 import { toReferenceSpec } from './derived-curve-outputs';
+import { resolveGridOptions, resolveSmoothingOptions, type ResolvedGridOptions } from './smoothing-and-grid-options';
 
 /**
  * Options of the spectrum analysis (same shapes as the response analyses where they overlap), with defaults:
@@ -35,7 +30,7 @@ export interface SpectrumAnalysisOptions {
 
 export interface ResolvedSpectrumOptions {
   smoothing: Required<SmoothingOptions>;
-  grid: { pointsPerOctave: number; startHz: number | null; stopHz: number | null } | null;
+  grid: ResolvedGridOptions | null;
   normalisation: NormalisationSpec;
   bandLimits: {
     reference: ReferenceLevelSpec | null;
@@ -62,52 +57,15 @@ const KEYS = [
   'maskGuardBandDb',
 ] as const;
 
-function resolveSmoothing(value: unknown, field: string): Required<SmoothingOptions> {
-  if (value === undefined) return { octaveFraction: 'none', averaging: 'power', window: 'hann' };
-  const raw = requireObject(value, field);
-  rejectUnknownKeys(raw, field, ['octaveFraction', 'averaging', 'window']);
-  return {
-    octaveFraction: raw.octaveFraction === 'none' ? 'none' : requireInteger(raw.octaveFraction, `${field}.octaveFraction`, 1, 48),
-    averaging: requireOneOf(raw.averaging ?? 'power', `${field}.averaging`, ['power', 'complex'] as const),
-    window: requireOneOf(raw.window ?? 'hann', `${field}.window`, ['hann', 'rectangular'] as const),
-  };
-}
-
 function resolveGrid(value: unknown, field: string): ResolvedSpectrumOptions['grid'] {
   if (value === undefined || value === null) return null;
-  const raw = requireObject(value, field);
-  rejectUnknownKeys(raw, field, ['pointsPerOctave', 'startHz', 'stopHz']);
-  const startHz = raw.startHz === undefined ? null : requireNumberInRange(raw.startHz, `${field}.startHz`, 0.01, 1e6, 'Hz');
-  const stopHz = raw.stopHz === undefined ? null : requireNumberInRange(raw.stopHz, `${field}.stopHz`, 0.01, 1e6, 'Hz');
-  if (startHz !== null && stopHz !== null && !(stopHz > startHz)) {
-    throw new EngineError('grid_range_invalid', `${field}.stopHz must be above ${field}.startHz.`, { field: `${field}.stopHz` });
-  }
-  return { pointsPerOctave: requireInteger(raw.pointsPerOctave ?? 48, `${field}.pointsPerOctave`, 1, 96), startHz, stopHz };
+  return resolveGridOptions(value, field);
 }
 
-function resolveBandLimits(value: unknown, field: string): ResolvedSpectrumOptions['bandLimits'] {
-  if (value === null) return null;
-  const raw = value === undefined ? {} : requireObject(value, field);
-  rejectUnknownKeys(raw, field, ['reference', 'dropsDb', 'toleranceDb', 'ignoreExcursionsNarrowerThanOctaves']);
-  let dropsDb = [3, 6, 10];
-  if (raw.dropsDb !== undefined) {
-    if (!Array.isArray(raw.dropsDb) || raw.dropsDb.length === 0 || raw.dropsDb.length > 10) {
-      throw new EngineError('band_limit_drops_invalid', `${field}.dropsDb must be a list of 1 to 10 dB values.`, { field: `${field}.dropsDb` });
-    }
-    dropsDb = raw.dropsDb.map((drop, i) => requireNumberInRange(drop, `${field}.dropsDb[${i}]`, 0.01, 100, 'dB'));
-  }
-  return {
-    reference: raw.reference === undefined ? null : toReferenceSpec(resolveReference(raw.reference, `${field}.reference`)),
-    dropsDb,
-    toleranceDb: requireNumberInRange(raw.toleranceDb ?? 3, `${field}.toleranceDb`, 0.01, 100, 'dB'),
-    ignoreExcursionsNarrowerThanOctaves: requireNumberInRange(
-      raw.ignoreExcursionsNarrowerThanOctaves ?? 0,
-      `${field}.ignoreExcursionsNarrowerThanOctaves`,
-      0,
-      2,
-      'octaves',
-    ),
-  };
+function resolveSpectrumBandLimits(value: unknown, field: string): ResolvedSpectrumOptions['bandLimits'] {
+  const bandLimits = resolveBandLimits(value, field);
+  if (bandLimits === null) return null;
+  return { ...bandLimits, reference: bandLimits.reference === null ? null : toReferenceSpec(bandLimits.reference) };
 }
 
 function optionalPositive(value: unknown, field: string, maximum: number, unit: string): number | null {
@@ -155,10 +113,10 @@ export function resolveSpectrumOptions(options: unknown, field = 'options'): Res
     validateMask(mask, `${field}.mask`);
   }
   return {
-    smoothing: resolveSmoothing(raw.smoothing, `${field}.smoothing`),
+    smoothing: resolveSmoothingOptions(raw.smoothing, `${field}.smoothing`),
     grid: resolveGrid(raw.grid, `${field}.grid`),
     normalisation,
-    bandLimits: resolveBandLimits(raw.bandLimits, `${field}.bandLimits`),
+    bandLimits: resolveSpectrumBandLimits(raw.bandLimits, `${field}.bandLimits`),
     thirdOctaveTable: (raw.thirdOctaveTable as boolean | undefined) ?? true,
     conditions: resolveConditions(raw.conditions, `${field}.conditions`),
     sensitivityBand: resolveSensitivityBand(raw.sensitivityBand, `${field}.sensitivityBand`),

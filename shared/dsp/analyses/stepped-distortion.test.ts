@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { polynomial, polynomialHarmonics } from '../distortion/test-signals';
 import { isEngineError } from '../errors';
 import { designSteppedSine, renderSteppedSine } from '../stimuli/stepped-sine';
+import { thrownBy } from '../test-support/thrown-by';
 import { analyzeSteppedDistortion } from './stepped-distortion';
 
 const FS = 48_000;
@@ -50,14 +51,6 @@ describe('stepped-sine distortion', () => {
       () => analyzeSteppedDistortion({ sampleRateHz: FS, channels: [new Float64Array(10)] }, plan),
       () => analyzeSteppedDistortion(good, { ...plan.parameters, bandsPerOctave: 5 }),
     ];
-    for (const attempt of attempts) {
-      let caught: unknown;
-      try {
-        attempt();
-      } catch (error) {
-        caught = error;
-      }
-      expect(isEngineError(caught)).toBe(true);
-    }
+    for (const attempt of attempts) expect(isEngineError(thrownBy(attempt))).toBe(true);
   });
 });

@@ -11,7 +11,7 @@ import { warning, type EngineWarning } from '../result/warnings';
 import { requireNumberInRange } from '../stimuli/parameter-checks';
 import { designSteppedSine, type SteppedSineParameters, type SteppedSinePlan, type SteppedSineStep } from '../stimuli/stepped-sine';
 import { channelWarnings, requireCapture, requireFiniteSamples, type CaptureInput } from './capture-checks';
-import { resolveChannelIndex } from './curve-output-options';
+import { resolveChannelIndex } from './channel-options';
 import { toneConventions } from './tone-distortion';
 
 /** Tone options plus where the plan sits in the capture; method defaults to 'coherent' (the plan's integer-cycle windows). */

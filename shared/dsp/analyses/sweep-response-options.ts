@@ -1,19 +1,7 @@
-import { EngineError } from '../errors';
 import type { WindowShape } from '../response/time-window';
-import {
-  rejectUnknownKeys,
-  requireInteger,
-  requireNumberInRange,
-  requireObject,
-  requireOneOf,
-} from '../stimuli/parameter-checks';
-import {
-  CURVE_OUTPUT_OPTION_KEYS,
-  resolveChannelIndex,
-  resolveCurveOutputOptions,
-  type CurveOutputOptions,
-  type ResolvedCurveOutputOptions,
-} from './curve-output-options';
+import { rejectUnknownKeys, requireNumberInRange, requireObject, requireOneOf } from '../stimuli/parameter-checks';
+import { resolveResponseCommonOptions, type ResolvedResponseCommonOptions, type ResponseCommonOptions } from './response-common-options';
+import { resolveGridOptions, resolveSmoothingOptions, type ResolvedGridOptions } from './smoothing-and-grid-options';
 
 /**
  * Options of the sweep frequency-response analysis, with their defaults:
@@ -43,10 +31,7 @@ export interface SweepSmoothingOptions {
   window?: 'hann' | 'rectangular';
 }
 
-export interface SweepResponseOptions extends CurveOutputOptions {
-  measurementChannel?: number;
-  referenceChannel?: number | null;
-  captureOffsetSeconds?: number;
+export interface SweepResponseOptions extends ResponseCommonOptions {
   gate?: SweepGateOptions | null;
   analysisWindowSeconds?: number;
   smoothing?: SweepSmoothingOptions;
@@ -55,29 +40,22 @@ export interface SweepResponseOptions extends CurveOutputOptions {
   lowSnrThresholdDb?: number;
 }
 
-export interface ResolvedSweepResponseOptions extends ResolvedCurveOutputOptions {
-  measurementChannel: number;
-  referenceChannel: number | null;
-  captureOffsetSeconds: number;
+export interface ResolvedSweepResponseOptions extends ResolvedResponseCommonOptions {
   gate: Required<SweepGateOptions> | null;
   analysisWindowSeconds: number;
   smoothing: Required<SweepSmoothingOptions>;
-  grid: { pointsPerOctave: number; startHz: number | null; stopHz: number | null };
+  grid: ResolvedGridOptions;
   impulseResponseOutputSeconds: number;
   lowSnrThresholdDb: number;
 }
 
-const KEYS = [
-  'measurementChannel',
-  'referenceChannel',
-  'captureOffsetSeconds',
+const OWN_KEYS = [
   'gate',
   'analysisWindowSeconds',
   'smoothing',
   'grid',
   'impulseResponseOutputSeconds',
   'lowSnrThresholdDb',
-  ...CURVE_OUTPUT_OPTION_KEYS,
 ] as const;
 
 function resolveGate(value: unknown, field: string): Required<SweepGateOptions> | null {
@@ -93,49 +71,15 @@ function resolveGate(value: unknown, field: string): Required<SweepGateOptions> 
   };
 }
 
-function resolveSmoothing(value: unknown, field: string): Required<SweepSmoothingOptions> {
-  if (value === undefined) return { octaveFraction: 'none', averaging: 'power', window: 'hann' };
-  const raw = requireObject(value, field);
-  rejectUnknownKeys(raw, field, ['octaveFraction', 'averaging', 'window']);
-  const octaveFraction = raw.octaveFraction === 'none' ? 'none' : requireInteger(raw.octaveFraction, `${field}.octaveFraction`, 1, 48);
-  return {
-    octaveFraction,
-    averaging: requireOneOf(raw.averaging ?? 'power', `${field}.averaging`, ['power', 'complex'] as const),
-    window: requireOneOf(raw.window ?? 'hann', `${field}.window`, ['hann', 'rectangular'] as const),
-  };
-}
-
-function resolveGrid(value: unknown, field: string): ResolvedSweepResponseOptions['grid'] {
-  const raw = value === undefined ? {} : requireObject(value, field);
-  rejectUnknownKeys(raw, field, ['pointsPerOctave', 'startHz', 'stopHz']);
-  const startHz = raw.startHz === undefined ? null : requireNumberInRange(raw.startHz, `${field}.startHz`, 0.01, 1e6, 'Hz');
-  const stopHz = raw.stopHz === undefined ? null : requireNumberInRange(raw.stopHz, `${field}.stopHz`, 0.01, 1e6, 'Hz');
-  if (startHz !== null && stopHz !== null && !(stopHz > startHz)) {
-    throw new EngineError('grid_range_invalid', `${field}.stopHz must be above ${field}.startHz.`, { field: `${field}.stopHz` });
-  }
-  return { pointsPerOctave: requireInteger(raw.pointsPerOctave ?? 48, `${field}.pointsPerOctave`, 1, 96), startHz, stopHz };
-}
-
 /** Validate and complete the options for a capture with `channelCount` channels. */
 export function resolveSweepResponseOptions(options: unknown, channelCount: number, field = 'options'): ResolvedSweepResponseOptions {
-  const raw = options === undefined ? {} : requireObject(options, field);
-  rejectUnknownKeys(raw, field, KEYS);
-  const measurementChannel = resolveChannelIndex(raw.measurementChannel, `${field}.measurementChannel`, channelCount, 0) as number;
-  const referenceChannel = resolveChannelIndex(raw.referenceChannel, `${field}.referenceChannel`, channelCount, null);
-  if (referenceChannel === measurementChannel) {
-    throw new EngineError('reference_is_measurement_channel', `${field}.referenceChannel must differ from the measurement channel.`, {
-      field: `${field}.referenceChannel`,
-    });
-  }
+  const { raw, common } = resolveResponseCommonOptions(options, channelCount, field, OWN_KEYS);
   return {
-    ...resolveCurveOutputOptions(raw, field),
-    measurementChannel,
-    referenceChannel,
-    captureOffsetSeconds: requireNumberInRange(raw.captureOffsetSeconds ?? 0, `${field}.captureOffsetSeconds`, 0, 600, 's'),
+    ...common,
     gate: resolveGate(raw.gate, `${field}.gate`),
     analysisWindowSeconds: requireNumberInRange(raw.analysisWindowSeconds ?? 1, `${field}.analysisWindowSeconds`, 0.001, 60, 's'),
-    smoothing: resolveSmoothing(raw.smoothing, `${field}.smoothing`),
-    grid: resolveGrid(raw.grid, `${field}.grid`),
+    smoothing: resolveSmoothingOptions(raw.smoothing, `${field}.smoothing`),
+    grid: resolveGridOptions(raw.grid, `${field}.grid`),
     impulseResponseOutputSeconds: requireNumberInRange(raw.impulseResponseOutputSeconds ?? 0.05, `${field}.impulseResponseOutputSeconds`, 0, 2, 's'),
     lowSnrThresholdDb: requireNumberInRange(raw.lowSnrThresholdDb ?? 20, `${field}.lowSnrThresholdDb`, 0, 200, 'dB'),
   };

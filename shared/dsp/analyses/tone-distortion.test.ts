@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { cosine, polynomial, polynomialHarmonics } from '../distortion/test-signals';
 import { isEngineError } from '../errors';
+import { thrownBy } from '../test-support/thrown-by';
 import { analyzeToneDistortion } from './tone-distortion';
 
 const FS = 48_000;
@@ -75,14 +76,6 @@ describe('tone distortion analysis', () => {
       () => analyzeToneDistortion({ samples: new Float64Array(100).fill(Number.NaN), sampleRateHz: FS }),
       () => analyzeToneDistortion({ samples: new Float64Array(4800), sampleRateHz: FS }),
     ];
-    for (const attempt of attempts) {
-      let caught: unknown;
-      try {
-        attempt();
-      } catch (error) {
-        caught = error;
-      }
-      expect(isEngineError(caught)).toBe(true);
-    }
+    for (const attempt of attempts) expect(isEngineError(thrownBy(attempt))).toBe(true);
   });
 });

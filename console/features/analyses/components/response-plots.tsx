@@ -47,7 +47,7 @@ export function ResponsePlots({ analysis, result }: { analysis: Analysis; result
       )}
       {mask && maskLines.isError && <p className="text-xs text-ink-600">The mask’s limit lines could not be loaded; the failing spans are still marked.</p>}
       {(phase || groupDelay) && (
-        <div className="grid gap-6 xl:grid-cols-2">
+        <div className="grid gap-6">
           {phase && <PlotPanel title="Phase" description="Bulk delay removed." spec={phase} summary="Phase against frequency, bulk delay removed." heightPx={240} />}
           {groupDelay && <PlotPanel title="Group delay" description="Bulk delay included." spec={groupDelay} summary="Group delay against frequency." heightPx={240} />}
         </div>

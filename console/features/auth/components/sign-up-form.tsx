@@ -1,31 +1,13 @@
-import { useState, type FormEvent } from 'react';
 import { Button } from '@console/components/ui/button';
 import { TextField } from '@console/components/ui/field';
 import { ProblemAlert } from '@console/components/ui/alert';
-import { fieldErrorsFromProblem } from '@console/lib/problem-message';
-import { fieldErrorsFromIssues, focusFirstInvalidField, type FieldErrors } from '@console/utils/form-errors';
-import { friendlyZodError } from '@console/utils/validation-messages';
 import type { Session } from '@shared/schemas/auth';
 import { PASSWORD_MIN_LENGTH, signUpInputSchema, useSignUp } from '../api/sign-up';
+import { useValidatedFormSubmit } from '../utils/use-validated-form-submit';
 
 export function SignUpForm({ onSignedUp }: { onSignedUp: (session: Session) => void }) {
-  const [clientErrors, setClientErrors] = useState<FieldErrors>({});
   const signUp = useSignUp({ onSuccess: onSignedUp });
-  const errors = { ...fieldErrorsFromProblem(signUp.error), ...clientErrors };
-
-  const onSubmit = (event: FormEvent<HTMLFormElement>) => {
-    event.preventDefault();
-    const form = event.currentTarget;
-    const parsed = signUpInputSchema.safeParse(Object.fromEntries(new FormData(form)), { error: friendlyZodError });
-    if (!parsed.success) {
-      const found = fieldErrorsFromIssues(parsed.error.issues);
-      setClientErrors(found);
-      focusFirstInvalidField(form, found);
-      return;
-    }
-    setClientErrors({});
-    signUp.mutate(parsed.data);
-  };
+  const { errors, onSubmit } = useValidatedFormSubmit(signUpInputSchema, signUp);
 
   return (
     <form noValidate onSubmit={onSubmit} className="space-y-5">

@@ -1,22 +1,12 @@
 /**
  * Test-only reference systems built from their published definitions, so the engine is checked against
- * something outside itself. Not used by the engine.
+ * something outside itself. Not used by the engine. The biquads and the seeded noise that the demo simulator
+ * shares live in response/biquad.ts and seeded-noise.ts.
  */
-export interface Biquad {
-  b: [number, number, number];
-  a: [number, number, number];
-}
+import type { Biquad } from '../../response/biquad';
 
-/** Peaking EQ (R. Bristow-Johnson, "Cookbook formulae for audio EQ biquad filter coefficients"): exactly gainDb at f0. */
-export function rbjPeaking(f0Hz: number, gainDb: number, q: number, sampleRateHz: number): Biquad {
-  const A = 10 ** (gainDb / 40);
-  const w0 = (2 * Math.PI * f0Hz) / sampleRateHz;
-  const alpha = Math.sin(w0) / (2 * q);
-  return {
-    b: [1 + alpha * A, -2 * Math.cos(w0), 1 - alpha * A],
-    a: [1 + alpha / A, -2 * Math.cos(w0), 1 - alpha / A],
-  };
-}
+export { cascade, filterBiquad, firstOrderLowPass, rbjPeaking, type Biquad } from '../../response/biquad';
+export { whiteNoise } from '../../seeded-noise';
 
 /** 2nd-order Butterworth low-pass H(s) = 1/(s² + √2·s + 1) by the bilinear transform pre-warped at fc (|H(fc)| = 1/√2). */
 export function butterworthLowPass2(fcHz: number, sampleRateHz: number): Biquad {
@@ -32,37 +22,6 @@ export function butterworthHighPass2(fcHz: number, sampleRateHz: number): Biquad
   const norm = 1 + Math.SQRT2 * k + k * k;
   const b0 = 1 / norm;
   return { b: [b0, -2 * b0, b0], a: [1, (2 * (k * k - 1)) / norm, (1 - Math.SQRT2 * k + k * k) / norm] };
-}
-
-/** 1st-order low-pass H(s) = 1/(1 + s/ωc), bilinear, pre-warped at fc (a biquad with b2 = a2 = 0). */
-export function firstOrderLowPass(fcHz: number, sampleRateHz: number): Biquad {
-  const k = Math.tan((Math.PI * fcHz) / sampleRateHz);
-  const b0 = k / (1 + k);
-  return { b: [b0, b0, 0], a: [1, (k - 1) / (k + 1), 0] };
-}
-
-/** Direct form I, y[n] = (Σ b_i·x[n−i] − Σ_{i≥1} a_i·y[n−i]) / a0. */
-export function filterBiquad(filter: Biquad, input: Float64Array): Float64Array {
-  const { b, a } = filter;
-  const out = new Float64Array(input.length);
-  let x1 = 0;
-  let x2 = 0;
-  let y1 = 0;
-  let y2 = 0;
-  for (let n = 0; n < input.length; n++) {
-    const x0 = input[n];
-    const y0 = (b[0] * x0 + b[1] * x1 + b[2] * x2 - a[1] * y1 - a[2] * y2) / a[0];
-    x2 = x1;
-    x1 = x0;
-    y2 = y1;
-    y1 = y0;
-    out[n] = y0;
-  }
-  return out;
-}
-
-export function cascade(input: Float64Array, filters: Biquad[]): Float64Array {
-  return filters.reduce((signal, filter) => filterBiquad(filter, signal), input);
 }
 
 function polynomialAt(c: readonly number[], omega: number): { re: number; im: number; dre: number; dim: number } {
@@ -116,23 +75,6 @@ export function biquadGroupDelaySeconds(filters: Biquad[], frequencyHz: number, 
 export function delaySamples(input: Float64Array, delay: number): Float64Array {
   const out = new Float64Array(input.length);
   for (let n = delay; n < input.length; n++) out[n] = input[n - delay];
-  return out;
-}
-
-/** Deterministic white Gaussian noise (mulberry32 + Box–Muller), RMS `rms`. */
-export function whiteNoise(length: number, rms: number, seed: number): Float64Array {
-  let state = seed >>> 0;
-  const uniform = () => {
-    state = (state + 0x6d2b79f5) >>> 0;
-    let t = state;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return (((t ^ (t >>> 14)) >>> 0) + 0.5) / 4294967296;
-  };
-  const out = new Float64Array(length);
-  for (let n = 0; n < length; n++) {
-    out[n] = rms * Math.sqrt(-2 * Math.log(uniform())) * Math.cos(2 * Math.PI * uniform());
-  }
   return out;
 }
 
