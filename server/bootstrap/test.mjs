@@ -18,7 +18,11 @@ async function main() {
   say(`Test MariaDB on 127.0.0.1:${database.port} (data in .data/mariadb-test/).`);
 
   const env = { ...process.env, NODE_ENV: 'test', SWEEPLINE_TEST_DATABASE_SERVER_URL: database.url };
-  const vitest = spawn(process.execPath, [fromRoot('node_modules', 'vitest', 'vitest.mjs'), 'run', ...process.argv.slice(2)], {
+  // A JSON report beside the usual output, so the run can close with one plain "N passed, N failed" line.
+  const reportPath = fromRoot('.data', 'vitest-report.json');
+  fs.rmSync(reportPath, { force: true });
+  const reporters = ['--reporter=default', '--reporter=json', `--outputFile.json=${reportPath}`];
+  const vitest = spawn(process.execPath, [fromRoot('node_modules', 'vitest', 'vitest.mjs'), 'run', ...reporters, ...process.argv.slice(2)], {
     cwd: fromRoot(),
     env,
     stdio: 'inherit',
@@ -31,7 +35,19 @@ async function main() {
   stopWhenOrphaned(() => forward('SIGTERM'));
   const [code, signal] = await new Promise((resolve) => vitest.on('exit', (...args) => resolve(args)));
   await database.release();
+  printClosingLine(reportPath);
   process.exit(code ?? (signal ? 1 : 0));
+}
+
+function printClosingLine(reportPath) {
+  if (!fs.existsSync(reportPath)) return;
+  try {
+    const report = JSON.parse(fs.readFileSync(reportPath, 'utf8'));
+    const skipped = (report.numPendingTests ?? 0) + (report.numTodoTests ?? 0);
+    process.stdout.write(`\nSummary: ${report.numPassedTests} passed, ${report.numFailedTests} failed, ${skipped} skipped\n`);
+  } catch {
+    // The report is a convenience; vitest's own exit code decides the run.
+  }
 }
 
 main().catch(exitOnBootstrapError);
