@@ -1,3 +1,5 @@
+import { seededUniform } from '../seeded-noise';
+
 /**
  * Signal builders for the distortion tests (test-only helpers; nothing in the engine imports this file).
  * Each builder follows a closed-form identity named beside it.
@@ -16,17 +18,7 @@ export function chebyshev(order: number, u: number): number {
   return current;
 }
 
-/** Deterministic uniform generator (mulberry32, public domain) so noisy tests give the same numbers every run. */
-export function seededUniform(seed: number): () => number {
-  let state = seed >>> 0;
-  return () => {
-    state = (state + 0x6d2b79f5) >>> 0;
-    let t = state;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+export { seededUniform };
 
 /** White Gaussian noise of RMS `rms` (Box–Muller transform). */
 export function whiteNoise(length: number, rms: number, seed: number): Float64Array {

@@ -146,14 +146,5 @@ export function floatSamples(frames: readonly (readonly number[])[], bits: 32 | 
   return out;
 }
 
-/** Small seeded PRNG (mulberry32), so fuzz runs are reproducible. */
-export function seededRandom(seed: number): () => number {
-  let state = seed >>> 0;
-  return () => {
-    state = (state + 0x6d2b79f5) >>> 0;
-    let t = state;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+/** Small seeded PRNG, so fuzz runs are reproducible. */
+export { seededUniform as seededRandom } from '../seeded-noise';
