@@ -82,6 +82,8 @@ describe('jobs shared by several processes', () => {
     const ids = await queueSweepAnalyses(6, 1);
     const [a, b] = await Promise.all([startWorker(), startWorker()]);
     const finished = await waitUntil(rows, (all) => ids.every((id) => all.find((row) => row.id === id)?.status === 'succeeded'), 60_000);
+    // A worker prints "done" after its commit, so the last line can arrive just after the rows say succeeded.
+    await waitUntil(async () => a.done.length + b.done.length, (count) => count >= ids.length, 10_000);
     expect(finished.filter((row) => ids.includes(row.id)).map((row) => row.status)).toEqual(ids.map(() => 'succeeded'));
     expect([...a.done, ...b.done].sort()).toEqual([...ids].sort());
     expect(new Set([...a.done, ...b.done]).size).toBe(ids.length);
@@ -90,9 +92,15 @@ describe('jobs shared by several processes', () => {
   }, 90_000);
 
   it('a worker killed mid-job (SIGKILL): the job finishes on another after the lease expires', async () => {
-    const [id] = await queueSweepAnalyses(1, 8);
+    // A 30 s capture keeps the job running long enough (hundreds of ms) for the poll below to see it mid-job.
+    await setOrganisationPlan(m.context.deps, m.owner.organisationId, { planId: 'plant' });
+    const [id] = await queueSweepAnalyses(1, 30);
     const victim = await startWorker();
-    const running = await waitUntil(rows, (all) => all.find((row) => row.id === id)?.leaseOwner === victim.owner, 30_000);
+    const running = await waitUntil(
+      rows,
+      (all) => all.some((row) => row.id === id && row.leaseOwner === victim.owner && row.status === 'running'),
+      30_000,
+    );
     expect(running.find((row) => row.id === id)?.status).toBe('running');
     victim.child.kill('SIGKILL');
     const survivor = await startWorker();
@@ -100,6 +108,7 @@ describe('jobs shared by several processes', () => {
     const row = done.find((candidate) => candidate.id === id)!;
     expect(row.status).toBe('succeeded');
     expect(row.attempts).toBe(2);
+    await waitUntil(async () => survivor.done, (lines) => lines.includes(id), 10_000);
     expect(survivor.done).toContain(id);
     const [stored] = await m.context.deps.db.select().from(analyses).where(eq(analyses.id, id));
     expect(stored.resultJson).toContain('"kind":"response_and_distortion"');
