@@ -1,7 +1,7 @@
 import type { DemoSeedResult } from './db/seed/seed';
 
 /** What `npm start` prints once the server listens. */
-export function startBanner(options: { baseUrl: string; version: string; consoleBuilt: boolean; seed: DemoSeedResult | null }): string {
+export function startBanner(options: { baseUrl: string; version: string; consoleBuilt: boolean; seed: DemoSeedResult | null; hostedSummary?: string[] }): string {
   const { baseUrl, seed } = options;
   const lines = [
     '',
@@ -9,6 +9,7 @@ export function startBanner(options: { baseUrl: string; version: string; console
     `  Console    ${baseUrl}/${options.consoleBuilt ? '' : '   (not built: the console/ sources are missing)'}`,
     `  API        ${baseUrl}/v1          (health: ${baseUrl}/v1/health)`,
     `  API docs   ${baseUrl}/docs/`,
+    ...(options.hostedSummary ?? []).map((line) => `  ${line}`),
   ];
   if (seed) {
     lines.push(

@@ -15,6 +15,7 @@ import { startRateLimitPruner } from './http/rate-limit';
 import { startWebhookDispatcher } from './webhooks/dispatcher';
 import { startJobRunner } from './jobs/job-runner';
 import { startLoopDelayReport } from './jobs/loop-delay-report';
+import { startHostedServices } from './hosted/hosted-services';
 
 const redactUrl = (url: string) => url.replace(/\/\/([^:/@]+):[^@]*@/, '//$1:***@');
 
@@ -29,7 +30,13 @@ async function main() {
     throw new Error(`Cannot prepare the database at ${redactUrl(config.databaseUrl)}: ${(error as Error).message}`);
   }
   const database = createDatabase(config.databaseUrl);
-  const deps: AppDeps = { config, db: database.db, clock: systemClock, logger };
+  // E-mail and payments: the configured services, or (development) local fakes that catch everything.
+  const hosted = await startHostedServices(
+    { config, db: database.db, clock: systemClock },
+    // The fake's customers and subscriptions survive restarts next to the private database, as the plan rows do.
+    { paymentsStatePath: '.data/payments-fake.json' },
+  );
+  const deps: AppDeps = { config, db: database.db, clock: systemClock, logger, mailer: hosted.mailer, billing: hosted.billing, devOutbox: hosted.devOutbox };
   const seed = config.seedDemo ? await seedDemo(deps) : null;
   const consoleBuild = await ensureConsoleBuilt(logger);
 
@@ -42,8 +49,9 @@ async function main() {
   const stopLoopReport = startLoopDelayReport(logger);
   await once(server, 'listening');
   const { port } = server.address() as AddressInfo;
+  hosted.announceBaseUrl(`http://${config.host}:${port}`);
   process.stdout.write(
-    startBanner({ baseUrl: `http://${config.host}:${port}`, version: config.version, consoleBuilt: consoleBuild.dir !== null, seed }),
+    startBanner({ baseUrl: `http://${config.host}:${port}`, version: config.version, consoleBuilt: consoleBuild.dir !== null, seed, hostedSummary: hosted.summary }),
   );
 
   let stopping = false;
@@ -62,6 +70,7 @@ async function main() {
     server.close(() => {
       void jobsStopped
         .then(() => webhookDispatcher.stop())
+        .then(() => hosted.stop())
         .then(() => database.close())
         .finally(() => process.exit(0));
     });

@@ -8,6 +8,8 @@ export interface LocalFakesOptions {
   paymentsWebhookSecret: string;
   /** Our server's provider-webhook route; may also be set later on `payments.setWebhookUrl`. */
   paymentsWebhookUrl?: string | null;
+  /** Keeps the payment fake's customers and subscriptions across restarts (development). */
+  paymentsStatePath?: string;
 }
 
 export interface LocalFakes {
@@ -25,6 +27,7 @@ export async function startLocalFakes(options: LocalFakesOptions): Promise<Local
       port: options.paymentsPort ?? 0,
       webhookSecret: options.paymentsWebhookSecret,
       webhookUrl: options.paymentsWebhookUrl ?? null,
+      statePath: options.paymentsStatePath,
     });
   } catch (error) {
     await smtp.stop();

@@ -7,7 +7,8 @@ import type { AppDeps } from '@server/deps';
 import { systemClock } from '@server/lib/clock';
 import { createLogger } from '@server/lib/logger';
 import { CONSOLE_DIST, ensureConsoleBuilt } from '@server/web/console-build';
-import { testConfig } from './test-app';
+import type { HostedServices } from '@server/hosted/hosted-services';
+import { hostedDeps, startTestHostedServices, testConfig } from './test-app';
 import { createTestDatabase, type TestDatabase } from './test-database';
 
 export interface TestServer {
@@ -17,6 +18,8 @@ export interface TestServer {
   deps: AppDeps;
   /** The demo organisation when started with seedDemo. */
   demo: DemoSeedResult | null;
+  /** The local SMTP catcher and payment fake, when started with `hostedFakes: true`. */
+  hosted: HostedServices | null;
   stop(): Promise<void>;
 }
 
@@ -29,7 +32,7 @@ const buildLog = {
  * A real server listening on 127.0.0.1 (random port) over its own fresh test database, serving the API, the
  * docs and the built console (rebuilt first when older than its sources), for browser and example tests.
  */
-export async function startTestServer(options: { seedDemo?: boolean; buildConsole?: boolean } = {}): Promise<TestServer> {
+export async function startTestServer(options: { seedDemo?: boolean; buildConsole?: boolean; hostedFakes?: boolean } = {}): Promise<TestServer> {
   const database = await createTestDatabase();
   const server = http.createServer();
   server.listen(0, '127.0.0.1');
@@ -38,7 +41,9 @@ export async function startTestServer(options: { seedDemo?: boolean; buildConsol
   const baseUrl = `http://127.0.0.1:${port}`;
 
   const config = testConfig({ databaseUrl: database.url, publicOrigin: baseUrl, port, host: '127.0.0.1' });
-  const deps: AppDeps = { config, db: database.db, clock: systemClock, logger: createLogger(config.logLevel) };
+  const hosted = options.hostedFakes ? await startTestHostedServices({ config, db: database.db, clock: systemClock }) : null;
+  hosted?.announceBaseUrl(baseUrl);
+  const deps: AppDeps = { config, db: database.db, clock: systemClock, logger: createLogger(config.logLevel), ...hostedDeps(hosted) };
   const demo = options.seedDemo ? await seedDemo(deps) : null;
   const consoleDir = options.buildConsole === false ? CONSOLE_DIST : (await ensureConsoleBuilt(buildLog)).dir;
   server.on('request', createApp(deps, { consoleDir }));
@@ -48,9 +53,11 @@ export async function startTestServer(options: { seedDemo?: boolean; buildConsol
     database,
     deps,
     demo,
+    hosted,
     async stop() {
       server.closeAllConnections();
       await new Promise<void>((resolve) => server.close(() => resolve()));
+      await hosted?.stop();
       await database.drop();
     },
   };
