@@ -7,7 +7,9 @@ import { ApiProblem } from './http/api-problem';
 import { apiFallback } from './http/api-fallback';
 import { csrfOriginCheck } from './http/csrf';
 import { errorHandler } from './http/error-handler';
+import { PROVIDER_WEBHOOK_PATH } from './hosted/hosted-services';
 import { recordRawBodyFingerprint } from './http/idempotency';
+import { redactUrlSecrets } from './http/redact-url';
 import { mountRoutes } from './http/mount-routes';
 import { requestId, requestIdOf } from './http/request-id';
 import { securityHeaders } from './http/security-headers';
@@ -35,13 +37,15 @@ export function createApp(deps: AppDeps, options: CreateAppOptions = {}): Expres
       customLogLevel: (_req, res, error) => (error || res.statusCode >= 500 ? 'error' : res.statusCode >= 400 ? 'warn' : 'info'),
       // One short line per request; headers (credentials among them) stay out of the log.
       serializers: {
-        req: (req: { id: string; method: string; url: string }) => ({ id: req.id, method: req.method, url: req.url }),
+        req: (req: { id: string; method: string; url: string }) => ({ id: req.id, method: req.method, url: redactUrlSecrets(req.url) }),
         res: (res: { statusCode: number }) => ({ statusCode: res.statusCode }),
       },
     }),
   );
   app.use(securityHeaders({ https: config.publicOrigin.startsWith('https:') }));
   app.use(cookieParser());
+  // The payment provider signs the exact bytes it sends: keep them raw here, before the JSON parser below sees them.
+  app.use(PROVIDER_WEBHOOK_PATH, express.raw({ type: () => true, limit: config.jsonBodyLimitBytes }));
 
   const v1 = express.Router();
   v1.use((_req, res, next) => {

@@ -16,6 +16,7 @@ import { startWebhookDispatcher } from './webhooks/dispatcher';
 import { startJobRunner } from './jobs/job-runner';
 import { startLoopDelayReport } from './jobs/loop-delay-report';
 import { startHostedServices } from './hosted/hosted-services';
+import { thresholdEmailsSettled } from './modules/usage/threshold-emails';
 
 const redactUrl = (url: string) => url.replace(/\/\/([^:/@]+):[^@]*@/, '//$1:***@');
 
@@ -29,7 +30,7 @@ async function main() {
   } catch (error) {
     throw new Error(`Cannot prepare the database at ${redactUrl(config.databaseUrl)}: ${(error as Error).message}`);
   }
-  const database = createDatabase(config.databaseUrl);
+  const database = createDatabase(config.databaseUrl, { connectionLimit: config.databaseConnections });
   // E-mail and payments: the configured services, or (development) local fakes that catch everything.
   const hosted = await startHostedServices(
     { config, db: database.db, clock: systemClock },
@@ -70,6 +71,8 @@ async function main() {
     server.close(() => {
       void jobsStopped
         .then(() => webhookDispatcher.stop())
+        // Quota e-mails still being sent go out before the relay connection closes.
+        .then(() => thresholdEmailsSettled())
         .then(() => hosted.stop())
         .then(() => database.close())
         .finally(() => process.exit(0));

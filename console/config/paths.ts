@@ -12,10 +12,15 @@ export const paths = {
         redirectTo && redirectTo !== '/' ? `/sign-up?redirectTo=${encodeURIComponent(redirectTo)}` : '/sign-up',
     },
   },
+  invitations: {
+    // Public: opened from the invitation e-mail, signed in or not.
+    accept: { path: '/invitations/:token', getHref: (token: string) => `/invitations/${encodeURIComponent(token)}` },
+  },
   app: {
     root: { path: '/', getHref: () => '/' },
     overview: { path: '', getHref: () => '/' },
     members: { path: 'members', getHref: () => '/members' },
+    usage: { path: 'usage', getHref: () => '/usage' },
     apiKeys: { path: 'api-keys', getHref: () => '/api-keys' },
     analyses: { path: 'analyses', getHref: (search?: string) => (search ? `/analyses?${search}` : '/analyses') },
     analysis: {
@@ -27,6 +32,18 @@ export const paths = {
       path: 'compare',
       getHref: (analysisIds: readonly string[] = []) => (analysisIds.length ? `/compare?ids=${analysisIds.map(encodeURIComponent).join(',')}` : '/compare'),
     },
+    stimuli: { path: 'stimuli', getHref: () => '/stimuli' },
+    production: { path: 'production', getHref: (search?: string) => (search ? `/production?${search}` : '/production') },
+    calibrations: { path: 'calibrations', getHref: () => '/calibrations' },
+    masks: { path: 'masks', getHref: () => '/masks' },
+    mask: {
+      path: 'masks/:maskId',
+      getHref: (maskId: string, version?: number) => `/masks/${encodeURIComponent(maskId)}${version ? `?version=${version}` : ''}`,
+    },
+    webhooks: { path: 'webhooks', getHref: () => '/webhooks' },
+    webhook: { path: 'webhooks/:endpointId', getHref: (endpointId: string) => `/webhooks/${encodeURIComponent(endpointId)}` },
+    developer: { path: 'developer', getHref: () => '/developer' },
+    devOutbox: { path: 'dev/outbox', getHref: () => '/dev/outbox' },
   },
 } as const;
 

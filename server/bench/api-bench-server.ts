@@ -8,18 +8,26 @@ import { startJobRunner } from '@server/jobs/job-runner';
 import { startLoopDelayReport } from '@server/jobs/loop-delay-report';
 import { systemClock } from '@server/lib/clock';
 import { createLogger } from '@server/lib/logger';
+import { installQueryCounter } from './api-bench/query-counter';
 
-/** The server under benchmark: API + job runner, no console, event-loop delay reported on stderr. */
+/**
+ * The server under benchmark: API + job runner with the production defaults (pool sizes, poll interval, engine
+ * threads from the environment), no console. Event-loop delay, memory, CPU, engine use and SQL statement counts
+ * are reported on stderr every BENCH_REPORT_MS (10 s).
+ */
 async function main() {
+  const queries = installQueryCounter();
   const config = loadConfig();
   const logger = createLogger(config.logLevel);
-  const database = createDatabase(config.databaseUrl, { connectionLimit: 20 });
+  const database = createDatabase(config.databaseUrl, { connectionLimit: config.databaseConnections });
   const deps: AppDeps = { config, db: database.db, clock: systemClock, logger };
-  const runner = startJobRunner(deps, { pollMs: 50 });
-  const stopReport = startLoopDelayReport(logger, 5000);
+  const runner = startJobRunner(deps);
+  const stopReport = startLoopDelayReport(logger, Number(process.env.BENCH_REPORT_MS ?? 10_000), () => ({ engine: runner.engineStats(), queries: queries.total, queryKinds: queries.byKeyword }));
   const server = createApp(deps, { consoleDir: null }).listen(config.port, '127.0.0.1');
   await once(server, 'listening');
-  process.stdout.write(`listening ${(server.address() as AddressInfo).port} threads=${runner.threads}\n`);
+  process.stdout.write(
+    `listening ${(server.address() as AddressInfo).port} threads=${runner.threads} concurrency=${runner.concurrency} connections=${config.databaseConnections} validateResponses=${config.validateResponses} nodeEnv=${config.nodeEnv}\n`,
+  );
   process.on('SIGTERM', () => {
     stopReport();
     server.closeAllConnections();

@@ -1,140 +1,71 @@
-import { spawn } from 'node:child_process';
-import net from 'node:net';
-import { randomUUID } from 'node:crypto';
-import { mkdtemp, rm } from 'node:fs/promises';
-import os from 'node:os';
-import path from 'node:path';
-import mysql from 'mysql2/promise';
 import { designSynchronizedSweep, renderSweep, writeWav } from '@shared/dsp';
-import { createDatabase } from '@server/db/client';
-import { applyMigrations } from '@server/db/migrate';
-import { setOrganisationPlan } from '@server/modules/usage/organisation-plan.service';
-import { systemClock } from '@server/lib/clock';
-import { createLogger } from '@server/lib/logger';
-import { loadConfig } from '@server/config/env';
-import { acquireTestDatabaseServer } from '../bootstrap/lib/instances.mjs';
+import { createBenchDatabase, prepareOrganisation, startBenchServer, type ServerReport } from './api-bench/bench-setup';
+import { printFigures, reportLine } from './api-bench/bench-report';
+import { loadAverage, processCpuSeconds } from './api-bench/proc-cpu';
+import { multipartBody, runRigLoad } from './api-bench/rig-load';
 
 /**
- * `npm run bench:api`: the server (own database, own blob folder) on loopback, RIGS simulated rigs each posting a
- * 2 s, 48 kHz sweep capture with its analysis (multipart, Prefer: wait=30) for SECONDS seconds. Bounded in count
- * and time; stops by itself. Env: BENCH_RIGS (32), BENCH_SECONDS (60).
+ * `npm run bench:api`: the server (own database on the test MariaDB, own blob folder, production settings) on
+ * loopback; RIGS simulated rigs each post a 2 s, 48 kHz sweep capture with its frequency_response analysis in one
+ * multipart request with `Prefer: wait=30`, one after another, for SECONDS seconds. Prints its configuration, a
+ * memory/CPU line per server report (10 s), and the figures against issue 5's targets. Bounded; stops by itself.
+ *
+ * Env: BENCH_RIGS (32), BENCH_SECONDS (60), BENCH_WARMUP_SECONDS (5, not counted), BENCH_SERVER_NODE_ARGS (e.g.
+ * "--cpu-prof --cpu-prof-dir=/tmp/prof" to profile the server), and the server's own SWEEPLINE_* variables
+ * (SWEEPLINE_ENGINE_THREADS, SWEEPLINE_JOB_CONCURRENCY, SWEEPLINE_DB_CONNECTIONS) pass through.
  */
 const RIGS = Number(process.env.BENCH_RIGS ?? 32);
 const SECONDS = Number(process.env.BENCH_SECONDS ?? 60);
-const SESSION_SECRET = 'sweepline-bench-session-secret-0123456789abcdef';
-
-const percentile = (sorted: number[], p: number) => (sorted.length ? sorted[Math.min(sorted.length - 1, Math.floor((p / 100) * sorted.length))] : NaN);
+const WARMUP_SECONDS = Math.min(Number(process.env.BENCH_WARMUP_SECONDS ?? 5), SECONDS / 2);
+const WAIT_SECONDS = 30;
 
 async function main() {
-  const lease = await acquireTestDatabaseServer();
-  const name = `swltest_${process.pid}_bench`;
-  const admin = await mysql.createConnection({ uri: lease.url });
-  await admin.query(`CREATE DATABASE \`${name}\``);
-  await admin.end();
-  const databaseUrl = `${lease.url}${name}`;
-  await applyMigrations(databaseUrl);
-  // A free loopback port, so the server can run with NODE_ENV=production (its PUBLIC_ORIGIN must be known).
-  const freePort = await new Promise<number>((resolve) => {
-    const probe = net.createServer().listen(0, '127.0.0.1', () => {
-      const { port } = probe.address() as net.AddressInfo;
-      probe.close(() => resolve(port));
+  const loadAtStart = loadAverage();
+  const database = await createBenchDatabase();
+  const server = await startBenchServer(database.url, {
+    nodeArgs: (process.env.BENCH_SERVER_NODE_ARGS ?? '').split(' ').filter(Boolean),
+    env: {},
+  });
+  try {
+    const sweep = { startHz: 20, stopHz: 20_000, approximateDurationSeconds: 2, sampleRateHz: 48_000, levelDbfs: -12, trailingSilenceSeconds: 0.3 };
+    const { secret, stimulusId } = await prepareOrganisation(server.base, database.url, sweep);
+    const wav = writeWav({ sampleRateHz: 48_000, channels: [renderSweep(designSynchronizedSweep(sweep)).map((x) => 0.8 * x)], encoding: 'float32' });
+    const analysis = JSON.stringify({ kind: 'frequency_response', stimulusId, dut: { model: 'KB-65 woofer', serial: 'KB65-24-000123' } });
+    const body = multipartBody(analysis, wav, 'kb65-24-000123.wav');
+
+    process.stdout.write('\nSweepline API benchmark (upload + frequency_response analysis + result in one request, Prefer: wait)\n');
+    process.stdout.write(`  rigs ${RIGS}, duration ${SECONDS} s (first ${WARMUP_SECONDS} s warm-up, not counted), capture ${wav.length} bytes float32 mono 48 kHz\n`);
+    process.stdout.write(
+      `  server: NODE_ENV=${server.nodeEnv}, response validation ${server.validateResponses ? 'ON' : 'off'}, engine threads ${server.engineThreads}, ` +
+        `jobs held at once ${server.jobConcurrency}, DB connections ${server.databaseConnections}, LOG_LEVEL=error\n`,
+    );
+    process.stdout.write(`  machine: ${(await import('node:os')).availableParallelism()} cores, load average at start ${loadAtStart}\n`);
+    let previous: ServerReport | undefined = server.reports.at(-1);
+    server.onReport((report) => {
+      process.stdout.write(reportLine(report, previous));
+      previous = report;
     });
-  });
-  const blobDir = await mkdtemp(path.join(os.tmpdir(), 'swl-bench-blobs-'));
-  const server = spawn(process.execPath, ['--import', 'tsx', 'server/bench/api-bench-server.ts'], {
-    // Production mode: no per-response schema check, as deployed.
-    env: {
-      ...process.env,
-      NODE_ENV: 'production',
-      LOG_LEVEL: 'error',
-      DATABASE_URL: databaseUrl,
-      SESSION_SECRET,
-      PUBLIC_ORIGIN: `http://127.0.0.1:${freePort}`,
-      SWEEPLINE_PORT: String(freePort),
-      SWEEPLINE_SEED_DEMO: 'false',
-      SWEEPLINE_BLOB_DIR: blobDir,
-      SWEEPLINE_LOOP_DELAY_REPORT: '1',
-    },
-    stdio: ['ignore', 'pipe', 'pipe'],
-  });
-  const loopLines: Array<{ final: boolean; p99Ms: number; maxMs: number; rssBytes: number; peakRssBytes: number }> = [];
-  server.stderr!.on('data', (chunk: Buffer) => {
-    for (const line of chunk.toString().split('\n')) {
-      if (line.startsWith('loop-delay ')) loopLines.push(JSON.parse(line.slice(11)));
-      else if (line.trim()) process.stderr.write(`[server] ${line}\n`);
-    }
-  });
-  const ready = await new Promise<string>((resolve) => server.stdout!.on('data', (chunk: Buffer) => { const m = /listening (\d+) threads=(\d+)/.exec(chunk.toString()); if (m) resolve(`${m[1]} ${m[2]}`); }));
-  const [port, threads] = ready.split(' ');
-  const base = `http://127.0.0.1:${port}`;
 
-  // An organisation with room for the run: sign up, a rig key, a plan with large quotas.
-  const signUp = await fetch(`${base}/v1/auth/sign-up`, { method: 'POST', headers: { 'content-type': 'application/json', origin: base }, body: JSON.stringify({ email: `bench.${Date.now()}@kestrelbay.example`, password: 'kb65-bench-password', displayName: 'Bench Rig', organisationName: 'Kestrel Bay Acoustics' }) });
-  const session = (await signUp.json()) as { activeOrganisation: { id: string } };
-  const cookie = signUp.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
-  // The plan is set before the first rate-limited request, so no process caches the free plan's limits.
-  const db = createDatabase(databaseUrl, { connectionLimit: 2 });
-  const config = { ...loadConfig({ NODE_ENV: 'test', SESSION_SECRET, DATABASE_URL: databaseUrl }) };
-  await setOrganisationPlan({ db: db.db, clock: systemClock, config, logger: createLogger('silent') } as never, session.activeOrganisation.id, {
-    planId: 'plant',
-    limitOverrides: { analysesPerMonth: 10_000_000, audioMinutesPerMonth: 10_000_000, requestsPerMinute: 10_000_000, storageBytes: 1e13 },
-  });
-  await db.close();
-  const keyResponse = await fetch(`${base}/v1/api-keys`, { method: 'POST', headers: { 'content-type': 'application/json', origin: base, cookie, 'idempotency-key': randomUUID() }, body: JSON.stringify({ name: 'bench rigs', scopes: ['captures:write', 'analyses:write', 'analyses:read'] }) });
-  const { secret } = (await keyResponse.json()) as { secret: string };
-
-  const parameters = { startHz: 20, stopHz: 20_000, approximateDurationSeconds: 2, sampleRateHz: 48_000, levelDbfs: -12, trailingSilenceSeconds: 0.3 };
-  const auth = { authorization: `Bearer ${secret}` };
-  const stimulus = (await (await fetch(`${base}/v1/stimuli`, { method: 'POST', headers: { ...auth, 'content-type': 'application/json', 'idempotency-key': randomUUID() }, body: JSON.stringify({ type: 'sweep', parameters }) })).json()) as { id: string };
-  const bytes = writeWav({ sampleRateHz: 48_000, channels: [renderSweep(designSynchronizedSweep(parameters)).map((x) => 0.8 * x)], encoding: 'float32' });
-  const analysis = JSON.stringify({ kind: 'frequency_response', stimulusId: stimulus.id, dut: { model: 'KB-65 woofer', serial: 'KB65-24-000123' } });
-
-  const latencies: number[] = [];
-  const errors: string[] = [];
-  const started = performance.now();
-  const deadline = started + SECONDS * 1000;
-  const rig = async () => {
-    while (performance.now() < deadline && latencies.length + errors.length < 100_000) {
-      const form = new FormData();
-      form.set('analysis', analysis);
-      form.set('file', new Blob([bytes as Uint8Array<ArrayBuffer>], { type: 'audio/wav' }), 'kb65-24-000123.wav');
-      const t0 = performance.now();
-      try {
-        const response = await fetch(`${base}/v1/analyses`, { method: 'POST', headers: { ...auth, prefer: 'wait=30', 'idempotency-key': randomUUID() }, body: form });
-        const body = (await response.json()) as { status?: string; code?: string };
-        if (response.status === 200 && body.status === 'succeeded') latencies.push(performance.now() - t0);
-        else errors.push(`${response.status} ${body.status ?? body.code}`);
-      } catch (error) {
-        errors.push((error as Error).message);
-      }
-    }
-  };
-  await Promise.all(Array.from({ length: RIGS }, rig));
-  const elapsedSeconds = (performance.now() - started) / 1000;
-  server.kill('SIGTERM');
-  await new Promise((resolve) => server.once('exit', resolve));
-  const admin2 = await mysql.createConnection({ uri: lease.url });
-  await admin2.query(`DROP DATABASE IF EXISTS \`${name}\``);
-  await admin2.end();
-  await rm(blobDir, { recursive: true, force: true });
-  await lease.release();
-
-  const sorted = [...latencies].sort((a, b) => a - b);
-  const final = loopLines.find((line) => line.final) ?? loopLines.at(-1);
-  const first = loopLines[0];
-  const mb = (bytes: number | undefined) => (bytes === undefined ? 'n/a' : `${(bytes / 1e6).toFixed(0)} MB`);
-  const rows = [
-    ['rigs / duration / engine threads', `${RIGS} / ${elapsedSeconds.toFixed(1)} s / ${threads}`, ''],
-    ['analyses completed', String(latencies.length), ''],
-    ['throughput', `${(latencies.length / elapsedSeconds).toFixed(2)} analyses/s`, 'target ≥ 15 /s'],
-    ['latency p50', `${percentile(sorted, 50).toFixed(0)} ms`, ''],
-    ['latency p99', `${percentile(sorted, 99).toFixed(0)} ms`, 'target < 2000 ms'],
-    ['event-loop delay p99 (server)', `${final ? final.p99Ms.toFixed(1) : 'n/a'} ms (max ${final ? final.maxMs.toFixed(0) : 'n/a'} ms)`, 'target < 50 ms'],
-    ['errors', `${errors.length}${errors.length ? ` (${[...new Set(errors)].slice(0, 3).join('; ')})` : ''}`, 'target 0'],
-    ['server RSS first report / end / peak', `${mb(first?.rssBytes)} / ${mb(final?.rssBytes)} / ${mb(final?.peakRssBytes)}`, 'target: no growth'],
-  ];
-  process.stdout.write(`\nSweepline API benchmark (upload + frequency_response analysis + result, Prefer: wait)\n`);
-  for (const [label, value, target] of rows) process.stdout.write(`  ${label.padEnd(38)} ${value.padEnd(34)} ${target}\n`);
+    const serverCpuStart = processCpuSeconds(server.pid);
+    const databaseCpuStart = processCpuSeconds(database.serverPid);
+    const load = await runRigLoad({ base: server.base, secret, body, rigs: RIGS, seconds: SECONDS, waitSeconds: WAIT_SECONDS });
+    const serverCpuEnd = processCpuSeconds(server.pid);
+    const databaseCpuEnd = processCpuSeconds(database.serverPid);
+    const loadAtEnd = loadAverage();
+    await server.stop();
+    process.stdout.write(`  load average at end ${loadAtEnd}\n`);
+    printFigures({
+      rigs: RIGS,
+      warmupSeconds: WARMUP_SECONDS,
+      load,
+      reports: server.reports,
+      serverCpuSeconds: serverCpuStart === null || serverCpuEnd === null ? null : serverCpuEnd - serverCpuStart,
+      databaseCpuSeconds: databaseCpuStart === null || databaseCpuEnd === null ? null : databaseCpuEnd - databaseCpuStart,
+    });
+  } finally {
+    await server.stop().catch(() => undefined);
+    await database.drop();
+  }
 }
 
 main().catch((error: unknown) => {

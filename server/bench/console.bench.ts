@@ -7,9 +7,12 @@
  *    MariaDB): from the start of navigation until the first screen's heading is visible and its form accepts
  *    focus (sign-in for a visitor; overview for a signed-in analyst). Median of RUNS fresh page loads.
  * 3. Overlay draw: /compare?bench=overlay renders 10 synthetic curves × 2 000 points with the real compare
- *    chart; the page times uPlot creation to the end of its first draw with performance.now(), for the page's
- *    first chart (code not yet compiled by the JIT) and for a second one after changing the normalisation.
- *    Target: < 50 ms.
+ *    chart, for the page's first chart (code not yet compiled by the JIT) and for a second one after changing
+ *    the normalisation. The page's performance marks split each into: data preparation (normalisation, series
+ *    config) with the React render and commit; the wait for the chart fonts; and the chart itself (uPlot options,
+ *    creation and first draw). "Total" runs from the start of the data preparation to the end of the first
+ *    draw — what a person waits once the curves are in hand. Target: < 50 ms for the chart and for the total.
+ *    Raster of the canvas happens after the draw call, with the next frame, and is not in these figures.
  */
 import { readdirSync, readFileSync, statSync } from 'node:fs';
 import path from 'node:path';
@@ -20,6 +23,14 @@ import { acquireTestDatabaseServer } from '../bootstrap/lib/instances.mjs';
 const RUNS = Number(process.env.BENCH_RUNS ?? 7);
 const JS_TARGET_KB = 250;
 const OVERLAY_TARGET_MS = 50;
+
+/** What the bench page reports per chart (window.__sweeplineOverlayDraws, console/app/routes/app/compare.tsx). */
+interface OverlayDrawTiming {
+  chartMs: number;
+  totalMs: number;
+  prepareAndRenderMs: number;
+  fontsMs: number;
+}
 
 const median = (values: number[]) => [...values].sort((a, b) => a - b)[Math.floor(values.length / 2)];
 const kb = (bytes: number) => (bytes / 1024).toFixed(1);
@@ -44,6 +55,7 @@ function lazyChunkGzipBytes(distDir: string, prefix: string): number | null {
 }
 
 async function main() {
+  const loadAtStart = loadavg();
   const database = await acquireTestDatabaseServer();
   process.env.SWEEPLINE_TEST_DATABASE_SERVER_URL = database.url;
   const { startTestServer } = await import('../../tests/support/test-server');
@@ -76,8 +88,8 @@ async function main() {
     if (signUp.status() !== 201) throw new Error(`sign-up answered ${signUp.status()}`);
     const page = await context.newPage();
     const analystMs: number[] = [];
-    const overlayMs: number[] = [];
-    const warmOverlayMs: number[] = [];
+    const firstDraws: OverlayDrawTiming[] = [];
+    const warmDraws: OverlayDrawTiming[] = [];
     for (let run = 0; run < RUNS; run++) {
       const started = Date.now();
       await page.goto('/', { waitUntil: 'commit' });
@@ -88,15 +100,15 @@ async function main() {
       // A second chart on the same page (normalisation changed): the same draw with the code already compiled.
       await page.getByText('0 dB at 1 kHz').click();
       await page.waitForSelector('body[data-bench-overlay-draws="2"]');
-      const draws = await page.evaluate(() => window.__sweeplineOverlayDrawsMs ?? []);
-      overlayMs.push(draws[0]);
-      warmOverlayMs.push(draws[1]);
+      const draws = await page.evaluate(() => window.__sweeplineOverlayDraws ?? []);
+      firstDraws.push(draws[0]);
+      warmDraws.push(draws[1]);
     }
     await context.close();
 
     const row = (label: string, value: string, target: string) => console.log(`${label.padEnd(44)} ${value.padStart(12)}   ${target}`);
     console.log(`Console benchmark (${RUNS} runs, headless chromium on loopback)\n`);
-    row('First-load JS (gzip)', `${kb(jsGzip)} kB`, `target < ${JS_TARGET_KB} kB ${jsGzip / 1024 < JS_TARGET_KB ? 'ok' : 'OVER'}`);
+    row('First-load JS (gzip)', `${kb(jsGzip)} kB`, `target < ${JS_TARGET_KB} kB ${jsGzip / 1024 < JS_TARGET_KB ? 'met' : 'missed'}`);
     for (const asset of assets.scripts) row(`  ${asset.href}`, `${kb(asset.gzipBytes)} kB`, `(${kb(asset.rawBytes)} kB raw)`);
     row('First-load CSS (gzip)', `${kb(cssGzip)} kB`, '');
     for (const [label, prefix] of [['  lazy: analyses screen', 'analyses'], ['  lazy: analysis detail', 'analysis-detail'], ['  lazy: compare', 'compare'], ['  lazy: result readers + uPlot', 'result-view']] as const) {
@@ -105,11 +117,19 @@ async function main() {
     }
     row('Time to interactive, visitor (sign-in)', `${median(visitorMs)} ms`, `median; min ${Math.min(...visitorMs)}, max ${Math.max(...visitorMs)}`);
     row('Time to interactive, analyst (overview)', `${median(analystMs)} ms`, `median; min ${Math.min(...analystMs)}, max ${Math.max(...analystMs)}`);
-    const overlay = median(overlayMs);
-    row('Overlay 10 curves × 2 000 points, first chart', `${overlay.toFixed(1)} ms`, `target < ${OVERLAY_TARGET_MS} ms ${overlay < OVERLAY_TARGET_MS ? 'ok' : 'OVER'}; min ${Math.min(...overlayMs).toFixed(1)}, max ${Math.max(...overlayMs).toFixed(1)}`);
-    const warm = median(warmOverlayMs);
-    row('Overlay 10 curves × 2 000 points, redrawn', `${warm.toFixed(1)} ms`, `target < ${OVERLAY_TARGET_MS} ms ${warm < OVERLAY_TARGET_MS ? 'ok' : 'OVER'}; min ${Math.min(...warmOverlayMs).toFixed(1)}, max ${Math.max(...warmOverlayMs).toFixed(1)}`);
-    console.log(`\nMachine: ${cpus().length} cores, load average ${loadavg().map((v) => v.toFixed(2)).join(' ')} (a busy machine stretches the times).`);
+    const verdict = (ms: number) => (ms < OVERLAY_TARGET_MS ? 'met' : 'missed');
+    for (const [label, draws] of [['first chart', firstDraws], ['redrawn', warmDraws]] as const) {
+      const figure = (key: keyof OverlayDrawTiming) => draws.map((draw) => draw[key]);
+      const spread = (values: number[]) => `min ${Math.min(...values).toFixed(1)}, max ${Math.max(...values).toFixed(1)}`;
+      const total = figure('totalMs');
+      const chart = figure('chartMs');
+      row(`Overlay 10 curves × 2 000 points, ${label}`, `${median(total).toFixed(1)} ms`, `total; target < ${OVERLAY_TARGET_MS} ms ${verdict(median(total))}; ${spread(total)}`);
+      row('  preparation, render and commit', `${median(figure('prepareAndRenderMs')).toFixed(1)} ms`, spread(figure('prepareAndRenderMs')));
+      row('  fonts ready', `${median(figure('fontsMs')).toFixed(1)} ms`, spread(figure('fontsMs')));
+      row('  chart: uPlot creation to first draw', `${median(chart).toFixed(1)} ms`, `target < ${OVERLAY_TARGET_MS} ms ${verdict(median(chart))}; ${spread(chart)}`);
+    }
+    const load = (values: number[]) => values.map((v) => v.toFixed(2)).join(' ');
+    console.log(`\nMachine: ${cpus().length} cores, load average ${load(loadAtStart)} at the start, ${load(loadavg())} at the end (1, 5, 15 min; a busy machine stretches the times).`);
   } finally {
     await browser.close();
     await server.stop();

@@ -31,6 +31,8 @@ const envSchema = z
     SWEEPLINE_SEED_DEMO: booleanFromEnv.optional(),
     SWEEPLINE_BLOB_DIR: z.string().min(1).default('.data/blobs'),
     SWEEPLINE_ENGINE_THREADS: z.coerce.number().int().min(1).max(256).optional(),
+    SWEEPLINE_JOB_CONCURRENCY: z.coerce.number().int().min(1).max(1024).optional(),
+    SWEEPLINE_DB_CONNECTIONS: z.coerce.number().int().min(2).max(500).default(10),
     SWEEPLINE_JOB_LEASE_SECONDS: z.coerce.number().positive().max(3600).default(30),
     SWEEPLINE_JOB_MAX_ATTEMPTS: z.coerce.number().int().min(1).max(20).default(3),
     SWEEPLINE_RUN_JOBS: booleanFromEnv.default(true),
@@ -100,9 +102,16 @@ export interface AppConfig {
   validateResponses: boolean;
   /** Folder of the content-addressed blob store (captures). */
   blobDir: string;
+  /** Size of this process's MariaDB connection pool. */
+  databaseConnections: number;
   jobs: {
     /** Engine worker threads in this process; default os.availableParallelism() − 1 (at least 1). */
     engineThreads: number | null;
+    /**
+     * Jobs this process holds at once; default twice the engine threads, so the next job's database reads and the
+     * last one's result write overlap with engine work instead of leaving a thread idle.
+     */
+    concurrency?: number | null;
     /** A running job whose lease is not renewed within this time is claimed again by any worker. */
     leaseSeconds: number;
     /** Claims per job before it is failed with the last reason. */
@@ -164,8 +173,10 @@ export function loadConfig(env: Record<string, string | undefined> = process.env
     apiKeyLastUsedIntervalSeconds: 60,
     validateResponses: !isProduction,
     blobDir: value.SWEEPLINE_BLOB_DIR,
+    databaseConnections: value.SWEEPLINE_DB_CONNECTIONS,
     jobs: {
       engineThreads: value.SWEEPLINE_ENGINE_THREADS ?? null,
+      concurrency: value.SWEEPLINE_JOB_CONCURRENCY ?? null,
       leaseSeconds: value.SWEEPLINE_JOB_LEASE_SECONDS,
       maxAttempts: value.SWEEPLINE_JOB_MAX_ATTEMPTS,
       runWorkers: value.SWEEPLINE_RUN_JOBS,

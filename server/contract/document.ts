@@ -4,6 +4,10 @@ import { problemSchema } from '@shared/schemas/problem';
 import { ROLE_PERMISSIONS, ROLES, type Permission } from '@shared/schemas/permissions';
 import type { RouteDefinition } from '@server/http/define-route';
 import { v1Routes } from '@server/modules/routes';
+import { acceptsKey, acceptsSession, problemCodesOf } from './problem-codes';
+import { openApiHeaders, responseHeadersOf } from './response-headers';
+
+export { problemCodesOf } from './problem-codes';
 
 const API_DESCRIPTION = `Sweepline analyses acoustic measurements for loudspeaker, microphone and headphone test rigs.
 
@@ -29,7 +33,9 @@ const TAGS = [
   { name: 'Tolerance masks', description: 'Upper and lower limits against frequency, versioned; derived from golden units or entered.' },
   { name: 'Production', description: 'Yield and unit-to-unit statistics for a model and lot.' },
   { name: 'Usage', description: 'Usage against the plan\'s monthly quotas and rate limit.' },
+  { name: 'Billing', description: 'Plans, checkout and billing portal at the payment provider, invoices, and the provider\'s signed events.' },
   { name: 'Webhooks', description: 'Signed event notifications (Standard Webhooks v1.0.0) with retries and a delivery log.' },
+  { name: 'Development', description: 'Helpers that exist only on development and test servers (the local mail catcher\'s outbox).' },
 ];
 
 const SECURITY_SCHEMES = {
@@ -46,10 +52,6 @@ const SECURITY_SCHEMES = {
     description: 'Console session from POST /v1/auth/sign-in. Writes must carry the console\'s Origin header.',
   },
 } as const;
-
-const acceptsSession = (route: RouteDefinition) => route.access.kind !== 'public' && route.access.kind !== 'api_key';
-const acceptsKey = (route: RouteDefinition) => route.access.kind !== 'public' && route.access.kind !== 'session';
-const isWrite = (route: RouteDefinition) => route.method !== 'get';
 
 function security(route: RouteDefinition): RouteConfig['security'] {
   const schemes: Array<Record<string, string[]>> = [];
@@ -77,31 +79,13 @@ function accessNote(route: RouteDefinition): string {
   }
 }
 
-/** The problems a route can answer with: implied by its inputs and access, plus the ones it lists. */
-export function problemCodesOf(route: RouteDefinition): ProblemCode[] {
-  const codes = new Set<ProblemCode>();
-  const { params, query, body, headers } = route.request;
-  if (params || query || body || headers) codes.add('validation_failed');
-  if (body || route.request.bodyContent) ['malformed_json', 'payload_too_large', 'unsupported_media_type'].forEach((code) => codes.add(code as ProblemCode));
-  if (route.request.bodyContent) codes.add('validation_failed');
-  if (acceptsSession(route) || acceptsKey(route)) codes.add('not_authenticated');
-  if (acceptsSession(route)) codes.add('session_expired');
-  if (acceptsKey(route)) ['invalid_api_key', 'api_key_expired', 'api_key_revoked'].forEach((code) => codes.add(code as ProblemCode));
-  if (route.access.kind === 'permission') {
-    codes.add('insufficient_permission');
-    codes.add('insufficient_scope');
-  }
-  if (acceptsSession(route) && isWrite(route)) codes.add('csrf_origin_mismatch');
-  route.problems.forEach((code) => codes.add(code));
-  codes.add('internal_error');
-  return [...codes];
-}
-
 function responsesOf(route: RouteDefinition): RouteConfig['responses'] {
   const responses: RouteConfig['responses'] = {};
   for (const [status, spec] of Object.entries(route.responses)) {
+    const headers = openApiHeaders(responseHeadersOf(route, Number(status), spec.headers));
     responses[status] = {
       description: spec.description,
+      ...(headers ? { headers } : {}),
       ...(spec.schema ? { content: { 'application/json': { schema: spec.schema } } } : {}),
       ...(spec.contentType && !spec.schema ? { content: { [spec.contentType]: { schema: { type: 'string', format: 'binary' } } } } : {}),
     };
@@ -113,8 +97,10 @@ function responsesOf(route: RouteDefinition): RouteConfig['responses'] {
     byStatus.set(status, [...(byStatus.get(status) ?? []), code]);
   }
   for (const [status, codes] of [...byStatus.entries()].sort(([a], [b]) => a - b)) {
+    const headers = openApiHeaders(responseHeadersOf(route, status, undefined));
     responses[String(status)] = {
       description: `Problem: ${codes.map((code) => `\`${code}\``).join(', ')}.`,
+      ...(headers ? { headers } : {}),
       content: { 'application/problem+json': { schema: problemSchema } },
     };
   }

@@ -12,3 +12,4 @@ export * from './schema/usage';
 export * from './schema/calibrations';
 export * from './schema/masks';
 export * from './schema/webhooks';
+export * from './schema/invitations';

@@ -163,8 +163,8 @@ export class IdempotencyRequest implements IdempotencyHandle {
     });
   }
 
-  /** Stores the response to replay. */
-  async complete(status: number, headers: Record<string, string>, body: unknown): Promise<void> {
+  /** Stores the response to replay; `serialisedBody` is the body's JSON text when the caller already has it. */
+  async complete(status: number, headers: Record<string, string>, body: unknown, serialisedBody?: string): Promise<void> {
     if (!this.scope || this.claimedFingerprint === null) return;
     const kept: Record<string, string> = {};
     for (const [name, value] of Object.entries(headers)) if (STORED_HEADERS.includes(name.toLowerCase())) kept[name.toLowerCase()] = value;
@@ -172,7 +172,7 @@ export class IdempotencyRequest implements IdempotencyHandle {
     await completeRecord(this.deps.db, this.scope, this.claimedFingerprint, {
       status,
       headers: kept,
-      body: body === undefined ? null : typeof body === 'string' ? body : JSON.stringify(body),
+      body: body === undefined ? null : typeof body === 'string' ? body : (serialisedBody ?? JSON.stringify(body)),
     });
   }
 

@@ -61,10 +61,16 @@ function handle(route: RouteDefinition, deps: AppDeps) {
       // A handler that streamed its own body (downloads) has already answered.
       if (res.headersSent) return;
       if (deps.config.validateResponses) checkReply(route, reply.status, reply.body);
-      await idempotency?.complete(reply.status, reply.headers ?? {}, reply.body);
+      // Serialised once, for the stored idempotent response and for the answer (results run to hundreds of kB).
+      const text = reply.body === undefined ? undefined : JSON.stringify(reply.body);
+      await idempotency?.complete(reply.status, reply.headers ?? {}, reply.body, text);
       for (const [name, value] of Object.entries(reply.headers ?? {})) res.setHeader(name, value);
-      if (reply.body === undefined) res.status(reply.status).end();
-      else res.status(reply.status).json(reply.body);
+      if (text === undefined) res.status(reply.status).end();
+      else {
+        // As res.json would: a content type the handler set stays.
+        if (!res.get('Content-Type')) res.type('application/json');
+        res.status(reply.status).send(text);
+      }
     } catch (error) {
       if (error instanceof IdempotentReplay) return sendReplay(res, error.record);
       const status = error instanceof ApiProblem ? error.status : 500;

@@ -58,6 +58,34 @@ export function decodeCursor(deps: AppDeps, binding: CursorBinding, cursor: stri
   }
 }
 
+/**
+ * A cursor carrying any JSON values (e.g. a sort key and the id tiebreak), sealed like encodeCursor: a list
+ * ordered by something other than (createdAt, id) uses these and checks the decoded shape itself.
+ */
+export function encodeValuesCursor(deps: AppDeps, binding: CursorBinding, values: unknown[]): string {
+  const payload = Buffer.from(JSON.stringify(values), 'utf8').toString('base64url');
+  return `${payload}.${mac(deps, payload, binding)}`;
+}
+
+/** The values of a cursor from encodeValuesCursor with the same binding; invalid_cursor otherwise. */
+export function decodeValuesCursor(deps: AppDeps, binding: CursorBinding, cursor: string): unknown[] {
+  const [payload, signature, extra] = cursor.split('.');
+  if (!payload || !signature || extra !== undefined || !constantTimeEqual(signature, mac(deps, payload, binding))) throw invalidCursor();
+  try {
+    const values: unknown = JSON.parse(Buffer.from(payload, 'base64url').toString('utf8'));
+    if (!Array.isArray(values)) throw new Error('not a list');
+    return values;
+  } catch {
+    throw invalidCursor();
+  }
+}
+
+export function invalidCursor(): ApiProblem {
+  return new ApiProblem('invalid_cursor', 'The cursor was not issued for this list with these filters and this sort. Start again without a cursor.', {
+    errors: [{ in: 'query', pointer: '#/cursor', detail: 'Use nextCursor from the previous page of the same query.' }],
+  });
+}
+
 /** Turns limit+1 fetched rows into a page; the extra row only tells whether another page exists. */
 export function toPage<Row, Item>(
   deps: AppDeps,

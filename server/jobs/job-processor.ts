@@ -34,7 +34,9 @@ function dutOf(row: AnalysisRow) {
 
 async function buildTask(deps: AppDeps, row: AnalysisRow): Promise<{ task: EngineTask; applied: AppliedCalibration | null }> {
   const stored = row.request as unknown as StoredRequest;
-  const applied = await resolveCalibrationForAnalysis(deps, row.organisationId, stored.calibration ?? null);
+  // A sensitivity derived from a stored response keeps the calibration that response was measured with.
+  const inherited = stored.spec.sensitivity?.source?.calibration as AppliedCalibration | undefined;
+  const applied = inherited ?? (await resolveCalibrationForAnalysis(deps, row.organisationId, stored.calibration ?? null));
   const resolvedMask = stored.mask ? await getMaskForAnalysis(deps, row.organisationId, stored.mask.maskId, stored.mask.version) : null;
   const bytes = row.captureId ? (await readCaptureBytes(deps, row.organisationId, row.captureId)).bytes : null;
   return {
@@ -63,7 +65,7 @@ async function finish(deps: AppDeps, row: AnalysisRow, owner: string, outcome: P
     if (!(await finishJob(tx, row.id, owner, outcome))) return false;
     const common = { id: row.id, kind: row.kind, captureId: row.captureId ?? undefined, dut: dutOf(row), url: `/v1/analyses/${row.id}` };
     if (outcome.status === 'succeeded') {
-      const verdict = outcome.verdict === 'pass' || outcome.verdict === 'fail' ? outcome.verdict : null;
+      const verdict = outcome.verdict === 'pass' || outcome.verdict === 'fail' || outcome.verdict === 'incomplete' ? outcome.verdict : null;
       await emitEvent(deps, row.organisationId, 'analysis.succeeded', { ...common, status: 'succeeded', verdict }, tx);
     } else {
       const error = outcome.error as { code: string; title: string };

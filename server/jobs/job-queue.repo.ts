@@ -1,4 +1,4 @@
-import { and, asc, eq, inArray, isNotNull, lt, or, sql } from 'drizzle-orm';
+import { and, asc, eq, inArray, isNotNull, isNull, lt, ne, or, sql } from 'drizzle-orm';
 import type { Database, Executor } from '@server/db/client';
 import { analyses } from '@server/db/tables';
 
@@ -17,8 +17,20 @@ export interface ClaimOptions {
   onExhausted?: (job: { id: string; organisationId: string; attempts: number }) => void;
 }
 
-const claimable = (now: Date) =>
-  or(eq(analyses.status, 'queued'), and(eq(analyses.status, 'running'), isNotNull(analyses.leaseExpiresAt), lt(analyses.leaseExpiresAt, now)));
+/**
+ * Queued, or running with an expired lease held by someone else: a runner never takes back its own job (it holds
+ * several at once and is still working on it; a late heartbeat renews the lease as long as no one else took it).
+ */
+const claimable = (now: Date, owner: string) =>
+  or(
+    eq(analyses.status, 'queued'),
+    and(
+      eq(analyses.status, 'running'),
+      isNotNull(analyses.leaseExpiresAt),
+      lt(analyses.leaseExpiresAt, now),
+      or(isNull(analyses.leaseOwner), ne(analyses.leaseOwner, owner)),
+    ),
+  );
 
 /**
  * Claims the oldest claimable job: queued, or running with an expired lease (its worker died). The row lock is
@@ -32,7 +44,7 @@ export async function claimNextJob(db: Database, options: ClaimOptions): Promise
       const [row] = await tx
         .select({ id: analyses.id, organisationId: analyses.organisationId, attempts: analyses.attempts, status: analyses.status })
         .from(analyses)
-        .where(claimable(options.now))
+        .where(claimable(options.now, options.owner))
         .orderBy(asc(analyses.createdAt))
         .limit(1)
         .for('update', { skipLocked: true });
@@ -132,6 +144,14 @@ export async function requeueJob(db: Executor, jobId: string, owner: string, now
     .set({ status: 'queued', leaseOwner: null, leaseExpiresAt: null, progress: 0, updatedAt: now })
     .where(heldBy(jobId, owner));
   return result.affectedRows === 1;
+}
+
+/** Status of each listed analysis, one statement for any number of organisations (each id scoped by its own). */
+export async function statusesByOrganisation(db: Executor, idsByOrganisation: Map<string, string[]>): Promise<Map<string, string>> {
+  const scopes = [...idsByOrganisation].filter(([, ids]) => ids.length > 0).map(([organisationId, ids]) => and(eq(analyses.organisationId, organisationId), inArray(analyses.id, ids)));
+  if (scopes.length === 0) return new Map();
+  const rows = await db.select({ id: analyses.id, status: analyses.status }).from(analyses).where(or(...scopes));
+  return new Map(rows.map((row) => [row.id, row.status]));
 }
 
 export async function jobStatuses(db: Executor, jobIds: string[]): Promise<Map<string, string>> {

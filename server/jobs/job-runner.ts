@@ -2,14 +2,16 @@ import { randomBytes } from 'node:crypto';
 import os from 'node:os';
 import type { AppDeps } from '@server/deps';
 import { emitEvent } from '@server/modules/webhook-endpoints/webhooks.service';
-import { createEnginePool, engineThreadCount, type EnginePool } from './engine-pool';
+import { createEnginePool, engineThreadCount, type EnginePool, type EnginePoolStats } from './engine-pool';
 import { claimNextJob, releaseJob, type ClaimedJob } from './job-queue.repo';
 import { notifyJobFinished, onJobQueued } from './job-notifier';
 import { processJob } from './job-processor';
 
 export interface JobRunnerOptions {
-  /** Engine threads (= jobs run at once); default from config. */
+  /** Engine threads (= analyses computed at once); default from config. */
   threads?: number;
+  /** Jobs held at once (claimed, loading, computing or writing); default from config, else 2 × threads. */
+  concurrency?: number;
   /** Idle poll interval, ms (a job queued in this process wakes the runner at once). */
   pollMs?: number;
   /** On stop, how long running jobs may take to finish before they are released, ms. */
@@ -21,17 +23,23 @@ export interface JobRunnerOptions {
 export interface JobRunner {
   owner: string;
   threads: number;
+  concurrency: number;
+  /** Engine thread use so far (benchmarks and logs). */
+  engineStats(): EnginePoolStats;
   /** Stop claiming, let running jobs finish within the grace time, release the rest (re-queued), close the pool. */
   stop(): Promise<void>;
 }
 
 /**
- * Works the analysis queue in this process: claims jobs while an engine thread is free, runs them, and polls the
- * database when idle, so any number of processes can share one queue.
+ * Works the analysis queue in this process: claims jobs while it holds fewer than `concurrency`, runs them on the
+ * engine threads, and polls the database when idle, so any number of processes can share one queue. Holding a few
+ * more jobs than threads keeps the threads busy: while one job computes, the next is claimed and its capture read,
+ * and the previous one's result is written; the extra jobs wait in the engine pool's queue with their leases renewed.
  */
 export function startJobRunner(deps: AppDeps, options: JobRunnerOptions = {}): JobRunner {
   const threads = options.threads ?? engineThreadCount(deps.config.jobs.engineThreads);
   const pool: EnginePool = createEnginePool(threads);
+  const concurrency = Math.max(1, options.concurrency ?? deps.config.jobs.concurrency ?? threads * 2);
   const owner = `${os.hostname().slice(0, 30)}:${process.pid}:${randomBytes(4).toString('hex')}`;
   const pollMs = options.pollMs ?? 250;
   const shutdown = new AbortController();
@@ -80,7 +88,7 @@ export function startJobRunner(deps: AppDeps, options: JobRunnerOptions = {}): J
 
   const loop = (async () => {
     while (!stopping) {
-      if (active.size >= threads) {
+      if (active.size >= concurrency) {
         await sleep();
         continue;
       }
@@ -98,6 +106,8 @@ export function startJobRunner(deps: AppDeps, options: JobRunnerOptions = {}): J
   return {
     owner,
     threads,
+    concurrency,
+    engineStats: () => pool.stats(),
     async stop() {
       if (stopping) return;
       stopping = true;

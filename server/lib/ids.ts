@@ -18,6 +18,7 @@ export const ID_PREFIXES = {
   webhookDelivery: 'whd',
   webhookEvent: 'evt',
   webhookAttempt: 'wha',
+  invitation: 'inv',
 } as const;
 
 export type IdKind = keyof typeof ID_PREFIXES;

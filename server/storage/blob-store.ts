@@ -8,11 +8,17 @@ export interface StoredBlob {
 
 /**
  * Content-addressed storage for captures. The disk store is the default; an S3-compatible store would implement
- * the same five methods (put = multipart upload keyed by hash), so switching is a configuration change.
+ * the same six methods (put = multipart upload keyed by hash), so switching is a configuration change.
  */
 export interface BlobStore {
   /** Stores the stream under its SHA-256; storing bytes that are already there keeps one copy. */
   put(source: Readable): Promise<StoredBlob>;
+  /**
+   * Stores a file already written and hashed into this store's temp folder (server/storage/hashing-file-writer.ts),
+   * taking it over (the file is moved, not copied, so the upload is not read and hashed a second time); a file
+   * outside that folder is copied and hashed.
+   */
+  adopt(file: { path: string; sha256: string; bytes: number }): Promise<StoredBlob>;
   /** A stream of the blob's bytes; rejects with BlobNotFoundError when absent. */
   get(sha256: string): Promise<Readable>;
   /** The whole blob in memory (captures are bounded by the plan's upload limit). */

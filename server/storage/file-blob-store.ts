@@ -20,16 +20,24 @@ export function createFileBlobStore(root: string): BlobStore & { root: string; t
       return false;
     }
   };
+  /** Renames a hashed temp file to its address (same file system: atomic); a blob already there is kept. */
+  const moveIntoPlace = async (written: { path: string; sha256: string; bytes: number }): Promise<StoredBlob> => {
+    const target = blobPath(written.sha256);
+    await mkdir(path.dirname(target), { recursive: true });
+    if (await exists(written.sha256)) await rm(written.path, { force: true });
+    else await rename(written.path, target);
+    return { sha256: written.sha256, bytes: written.bytes };
+  };
   return {
     root,
     tempDir,
     async put(source: Readable): Promise<StoredBlob> {
-      const written = await writeHashedFile(source, tempDir);
-      const target = blobPath(written.sha256);
-      await mkdir(path.dirname(target), { recursive: true });
-      if (await exists(written.sha256)) await rm(written.path, { force: true });
-      else await rename(written.path, target);
-      return { sha256: written.sha256, bytes: written.bytes };
+      return moveIntoPlace(await writeHashedFile(source, tempDir));
+    },
+    async adopt(file) {
+      // A file elsewhere (another file system, perhaps) is copied and hashed again instead.
+      if (path.dirname(path.resolve(file.path)) !== path.resolve(tempDir)) return moveIntoPlace(await writeHashedFile(createReadStream(file.path), tempDir));
+      return moveIntoPlace(file);
     },
     async get(sha256: string) {
       if (!(await exists(sha256))) throw new BlobNotFoundError(sha256);

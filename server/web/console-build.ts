@@ -5,7 +5,8 @@ import { fileURLToPath } from 'node:url';
 
 const ROOT = path.resolve(fileURLToPath(new URL('../..', import.meta.url)));
 export const CONSOLE_DIST = path.join(ROOT, 'dist', 'console');
-const SOURCES = ['console', 'shared', 'vite.config.ts', 'package-lock.json', 'tsconfig.json'].map((entry) => path.join(ROOT, entry));
+// examples/ is bundled too: the developer corner shows the rig examples verbatim.
+const SOURCES = ['console', 'shared', 'examples', 'vite.config.ts', 'package-lock.json', 'tsconfig.json'].map((entry) => path.join(ROOT, entry));
 const LOCK_DIR = path.join(ROOT, 'dist', '.console-build.lock');
 
 function newestMtimeMs(entry: string): number {

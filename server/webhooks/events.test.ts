@@ -25,6 +25,16 @@ describe('webhook events', () => {
     expect(body).not.toMatch(/\n|": /);
   });
 
+  it('carry the mask verdict as pass, fail or incomplete, and null without a mask', () => {
+    const data = (verdict: unknown) => ({ id: 'ana_8KQ2v', kind: 'spectrum', status: 'succeeded' as const, verdict, url: '/v1/analyses/ana_8KQ2v' }) as never;
+    for (const verdict of ['pass', 'fail', 'incomplete', null]) {
+      expect(buildWebhookEvent('analysis.succeeded', data(verdict), OCCURRED_AT).event.data.verdict).toBe(verdict);
+    }
+    expect(() => buildWebhookEvent('analysis.succeeded', data('marginal'), OCCURRED_AT)).toThrow(
+      expect.objectContaining({ code: 'invalid_event_data', message: expect.stringContaining('verdict') }),
+    );
+  });
+
   it('validate data against the event type and name the bad field', () => {
     expect(() =>
       buildWebhookEvent('quota.threshold', { quota: 'analyses', thresholdPercent: 180, used: 9, limit: 10, periodEndsAt: '2026-04-01T00:00:00Z' }, OCCURRED_AT),

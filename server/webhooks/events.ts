@@ -16,7 +16,11 @@ const analysisSucceededData = z.object({
   status: z.literal('succeeded'),
   captureId: z.string().optional(),
   dut: dutSummary.optional(),
-  verdict: z.enum(['pass', 'fail']).nullable().optional().describe('Null when no tolerance mask was applied.'),
+  verdict: z
+    .enum(['pass', 'fail', 'incomplete'])
+    .nullable()
+    .optional()
+    .describe('Mask verdict: incomplete when the curve does not cover the whole mask; null when no tolerance mask was applied.'),
   url: z.string().describe('Path of the analysis resource, e.g. /v1/analyses/ana_…'),
 });
 

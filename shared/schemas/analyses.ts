@@ -15,13 +15,15 @@ export const ANALYSIS_KINDS = [
   'calibrator',
   'sensitivity',
   'spectrum',
+  'tone_distortion',
 ] as const;
 export const analysisKindSchema = z.enum(ANALYSIS_KINDS).meta({
   id: 'AnalysisKind',
   description:
     'frequency_response, distortion and response_and_distortion take a sweep capture; stepped_sine a stepped-sine capture; ' +
     'calibrator a calibrator-tone capture; sensitivity a sweep capture (loudspeaker, headphone) or a calibrator capture ' +
-    '(microphone); spectrum a JSON spectrum (no WAV).',
+    '(microphone); spectrum a JSON spectrum (no WAV); tone_distortion a single-tone capture (optionally of a ' +
+    'calibrator_check stimulus, whose frequency is then the default toneFrequencyHz).',
 });
 export type AnalysisKind = z.infer<typeof analysisKindSchema>;
 
@@ -95,6 +97,14 @@ export const spectrumInputSchema = z
 export const sensitivityRequestSchema = z
   .strictObject({
     deviceType: z.enum(['loudspeaker', 'microphone', 'headphone']),
+    responseAnalysisId: analysisIdSchema.optional().meta({
+      description:
+        'Loudspeaker, headphone: derive the sensitivity from this succeeded, calibrated frequency_response or stepped_sine ' +
+        'analysis of the organisation (its stored dB SPL curve) instead of a capture. Its calibration, distance and drive ' +
+        'voltage apply; give no captureId, stimulus or calibration. Refused with 422 source_analysis_unusable (extension ' +
+        '`reason`) when it is missing, not a response, not succeeded, uncalibrated, normalised or referred to another ' +
+        'distance or drive.',
+    }),
     bandHz: z.tuple([z.number().positive(), z.number().positive()]).optional().meta({ description: 'Band of the power mean of the calibrated response (loudspeaker, headphone). Default [300, 3000].', example: [300, 3000] }),
     statedLevelDbSpl: z.number().optional().meta({ description: 'Microphone: the calibrator\'s stated level, dB SPL.', example: 94 }),
     statedFrequencyHz: z.number().optional().meta({ description: 'Microphone: the calibrator\'s stated frequency. Default 1000 Hz.' }),
@@ -120,7 +130,9 @@ export const analysisOptionsSchema = z.record(z.string(), z.unknown()).meta({
     'response: smoothing {octaveFraction: "none"|1…48, averaging power|complex}, grid {pointsPerOctave, startHz, stopHz}, ' +
     'normalisation {kind: none|at_1khz|at_frequency|band_mean}, bandLimits, thirdOctaveTable, analysisWindowSeconds, ' +
     'captureOffsetSeconds. Distortion: maxOrder, upperLimitHz (THD bandwidth), thdHeadline thd_f|thd_r, screening, summary. ' +
-    'response_and_distortion: {response: {...}, distortion: {...}}. Spectrum: smoothing, grid, normalisation, bandLimits, ' +
+    'response_and_distortion: {response: {...}, distortion: {...}}. tone_distortion: toneFrequencyHz, method ' +
+    'windowed|coherent, window, analysisSegment/silentSegment {startSeconds, durationSeconds}, maxOrder, upperLimitHz, ' +
+    'thdHeadline, thdPlusNoise, minSnrDb, residualPointsPerOctave, screening. Spectrum: smoothing, grid, normalisation, bandLimits, ' +
     'sensitivityBand, maskGuardBandDb. Channels, gate, conditions and calibration come from their own members.',
   example: { smoothing: { octaveFraction: 6 }, grid: { pointsPerOctave: 24 } },
 });
@@ -200,6 +212,7 @@ export const analysisSchema = z
     engineVersion: z.string().nullable(),
     calibration: appliedCalibrationSchema.nullable().meta({ description: 'The calibration applied; null = relative dBFS (see the uncalibrated warning).' }),
     verdict: verdictSchema.nullable(),
+    worstMarginDb: z.number().nullable().meta({ description: 'Smallest margin to the mask limits, dB (negative = outside); null without a mask verdict.', example: 1.8 }),
     warnings: z.array(engineWarningSchema),
     conventions: z.record(z.string(), z.union([z.string(), z.number()])).nullable(),
     result: z.record(z.string(), z.unknown()).nullable().meta({ description: 'The engine result (kind, engineVersion, conventions, figures, curves, warnings), returned exactly as stored.' }),
@@ -210,8 +223,19 @@ export type Analysis = z.infer<typeof analysisSchema>;
 
 export const analysisParamsSchema = z.strictObject({ analysisId: analysisIdSchema });
 
+export const ANALYSIS_SORTS = ['-createdAt', 'createdAt', 'model', '-model', 'serial', '-serial', 'verdict', '-verdict', 'worstMarginDb', '-worstMarginDb'] as const;
+export const analysisSortSchema = z.enum(ANALYSIS_SORTS).meta({
+  id: 'AnalysisSort',
+  description:
+    'Order of the list: a field, ascending, or `-field`, descending; ties are broken by id in the same direction. ' +
+    '`model`, `serial`, `verdict` (fail < incomplete < pass) and `worstMarginDb` put analyses without that value last ' +
+    'in either direction. Default `-createdAt` (newest first).',
+});
+export type AnalysisSort = z.infer<typeof analysisSortSchema>;
+
 export const analysisListQuerySchema = z.strictObject({
   ...pageQueryShape,
+  sort: analysisSortSchema.default('-createdAt'),
   kind: analysisKindSchema.optional(),
   status: analysisStatusSchema.optional(),
   verdict: verdictSchema.optional(),

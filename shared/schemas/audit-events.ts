@@ -8,6 +8,20 @@ export const AUDIT_ACTIONS = [
   'member.removed',
   'api_key.created',
   'api_key.revoked',
+  'calibration.created',
+  'calibration_settings.updated',
+  'mask.created',
+  'mask.version_created',
+  'webhook_endpoint.created',
+  'webhook_endpoint.updated',
+  'webhook_endpoint.enabled',
+  'webhook_endpoint.disabled',
+  'webhook_endpoint.secret_rotated',
+  'webhook_endpoint.deleted',
+  'invitation.created',
+  'invitation.resent',
+  'invitation.revoked',
+  'invitation.accepted',
 ] as const;
 export type AuditAction = (typeof AUDIT_ACTIONS)[number];
 

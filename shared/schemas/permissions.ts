@@ -15,6 +15,7 @@ export const PERMISSION_DESCRIPTIONS = {
   'masks:read': 'Read tolerance masks.',
   'masks:write': 'Create and version tolerance masks.',
   'usage:read': 'Read usage and plan limits.',
+  'billing:manage': 'See plans and invoices, change the plan and open the billing portal.',
   'members:read': 'List the members of the organisation.',
   'members:manage': 'Change member roles and remove members.',
   'keys:manage': 'Create, list and revoke API keys.',

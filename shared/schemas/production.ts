@@ -54,3 +54,54 @@ export const productionSummarySchema = z
   })
   .meta({ id: 'ProductionSummary', description: 'Counts, yield and unit-to-unit distributions of the headline figures for a model and lot.' });
 export type ProductionSummary = z.infer<typeof productionSummarySchema>;
+
+export const productionLotsQuerySchema = z.strictObject({
+  model: z.string().trim().min(1).max(100).optional().meta({ description: 'Only the lots of this model.', example: 'KB-65 woofer' }),
+});
+export type ProductionLotsQuery = z.infer<typeof productionLotsQuerySchema>;
+
+export const productionLotSchema = z
+  .object({
+    model: z.string().meta({ example: 'KB-65 woofer' }),
+    lot: z.string().nullable().meta({ description: 'null groups the model\'s analyses that name no lot.', example: 'LOT-2024-11A' }),
+    analyses: z.number().int().meta({ description: 'Analyses of the model and lot, any status.' }),
+    firstCreatedAt: timestampSchema,
+    lastCreatedAt: timestampSchema,
+  })
+  .meta({ id: 'ProductionLot' });
+export type ProductionLot = z.infer<typeof productionLotSchema>;
+
+/** Most model/lot pairs one listing returns (most recently measured first). */
+export const PRODUCTION_LOTS_LIMIT = 500;
+
+export const productionLotListSchema = z
+  .object({ data: z.array(productionLotSchema), truncated: z.boolean().meta({ description: `True when more than ${PRODUCTION_LOTS_LIMIT} pairs exist; the oldest are left out.` }) })
+  .meta({ id: 'ProductionLotList', description: 'The models and lots the organisation\'s analyses name, most recently measured first.' });
+export type ProductionLotList = z.infer<typeof productionLotListSchema>;
+
+/** Most units one listing returns (newest first). */
+export const PRODUCTION_UNITS_LIMIT = 5000;
+
+export const productionUnitSchema = z
+  .object({
+    analysisId: z.string().meta({ example: 'ana_5Tr8Wq1Zm4Kd7Nx2Lb9C' }),
+    serial: z.string().nullable().meta({ example: 'KB65-24-000123' }),
+    createdAt: timestampSchema,
+    verdict: z.enum(['pass', 'fail', 'incomplete']).nullable(),
+    sensitivity: z.object({
+      dbSplAt2p83VoltsOneMetre: z.number().nullable().meta({ description: 'Loudspeakers: dB SPL at 1 m for 2.83 V RMS.' }),
+      dbSplPerVolt: z.number().nullable().meta({ description: 'Headphones: dB SPL for 1 V RMS.' }),
+      millivoltsPerPascal: z.number().nullable().meta({ description: 'Microphones: mV/Pa.' }),
+    }),
+    thdFAtOneKilohertzPercent: z.number().nullable().meta({ description: 'THD_F (relative to the fundamental) at 1 kHz, %.' }),
+  })
+  .meta({ id: 'ProductionUnit', description: 'One succeeded analysis of a unit with the headline figures the production summary aggregates.' });
+export type ProductionUnit = z.infer<typeof productionUnitSchema>;
+
+export const productionUnitListSchema = z
+  .object({
+    data: z.array(productionUnitSchema),
+    truncated: z.boolean().meta({ description: `True when more than ${PRODUCTION_UNITS_LIMIT} analyses matched; narrow the time range.` }),
+  })
+  .meta({ id: 'ProductionUnitList', description: 'Per-unit figures of a model\'s (and lot\'s) succeeded analyses, newest first, for histograms and trends.' });
+export type ProductionUnitList = z.infer<typeof productionUnitListSchema>;

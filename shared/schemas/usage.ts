@@ -32,3 +32,22 @@ export const usageSchema = z
   })
   .meta({ id: 'Usage', description: 'Usage of the current period against the plan\'s limits.' });
 export type Usage = z.infer<typeof usageSchema>;
+
+export const dailyUsageSchema = z
+  .object({
+    period: z.object({ start: timestampSchema, end: timestampSchema }),
+    days: z.array(
+      z.object({
+        date: z.iso.date().meta({ description: 'UTC calendar day (YYYY-MM-DD).', example: '2026-12-01' }),
+        analyses: z.number().int().nonnegative(),
+        audioMinutes: z.number().nonnegative(),
+      }),
+    ),
+  })
+  .meta({
+    id: 'DailyUsage',
+    description:
+      'Analyses and audio minutes charged per UTC day of the current period, from its first day to today (days without use are 0). ' +
+      'Refunded analyses are not counted. Storage is a running total and has no daily series.',
+  });
+export type DailyUsage = z.infer<typeof dailyUsageSchema>;

@@ -75,7 +75,7 @@ beforeAll(async () => {
   context = await createTestContext({
     config: { blobDir: join(workDir, 'blobs'), jobs: { engineThreads: 1, leaseSeconds: 30, maxAttempts: 3, runWorkers: true } },
   });
-  const demo = await seedDemo(context.deps);
+  const demo = await seedDemo(context.deps, [], { workspace: false });
   expect(demo.apiKeySecret).toBeTruthy();
   // The demo owner's console session reads what the examples created (its rate limit is not the rig key's).
   const ownerUser = DEMO_USERS.find((user) => user.role === 'owner')!;

@@ -114,4 +114,29 @@ describe('jobs shared by several processes', () => {
     expect(stored.resultJson).toContain('"kind":"response_and_distortion"');
     survivor.child.kill('SIGTERM');
   }, 90_000);
+
+  it('Prefer: wait is answered when a worker in another process finishes the job, several waiting requests at once', async () => {
+    // No runner in this process: the waiting requests learn of the finish only from the shared status poll.
+    await setOrganisationPlan(m.context.deps, m.owner.organisationId, { planId: 'plant', limitOverrides: { requestsPerMinute: 100_000 } });
+    const parameters = { startHz: 20, stopHz: 20_000, approximateDurationSeconds: 1, sampleRateHz: fs, levelDbfs: -12, trailingSilenceSeconds: 0.5 };
+    const stimulus = await m.api().post('/v1/stimuli').set(auth(m.key)).set(idempotencyKey()).send({ type: 'sweep', parameters });
+    const sweep = renderSweep(designSynchronizedSweep(parameters));
+    const worker = await startWorker();
+    const answers = await Promise.all(
+      [0, 1, 2].map(() =>
+        m.api().post('/v1/analyses').set(auth(m.key)).set(idempotencyKey()).set('Prefer', 'wait=50')
+          .field('analysis', JSON.stringify({ kind: 'frequency_response', stimulusId: stimulus.body.id }))
+          .attach('file', wav([sweep]), 'sweep.wav'),
+      ),
+    );
+    for (const answer of answers) {
+      expect(answer.status, JSON.stringify(answer.body).slice(0, 300)).toBe(200);
+      expect(answer.body.status).toBe('succeeded');
+      expect(answer.headers['preference-applied']).toBe('wait=50');
+      expect(answer.body.result.kind).toBe('frequency_response');
+    }
+    await waitUntil(async () => worker.done, (lines) => answers.every((answer) => lines.includes(answer.body.id)), 10_000);
+    expect(answers.every((answer) => worker.done.includes(answer.body.id))).toBe(true);
+    worker.child.kill('SIGTERM');
+  }, 90_000);
 });

@@ -32,7 +32,7 @@ const buildLog = {
  * A real server listening on 127.0.0.1 (random port) over its own fresh test database, serving the API, the
  * docs and the built console (rebuilt first when older than its sources), for browser and example tests.
  */
-export async function startTestServer(options: { seedDemo?: boolean; buildConsole?: boolean; hostedFakes?: boolean } = {}): Promise<TestServer> {
+export async function startTestServer(options: { seedDemo?: boolean; demoWorkspace?: boolean; buildConsole?: boolean; hostedFakes?: boolean } = {}): Promise<TestServer> {
   const database = await createTestDatabase();
   const server = http.createServer();
   server.listen(0, '127.0.0.1');
@@ -44,7 +44,8 @@ export async function startTestServer(options: { seedDemo?: boolean; buildConsol
   const hosted = options.hostedFakes ? await startTestHostedServices({ config, db: database.db, clock: systemClock }) : null;
   hosted?.announceBaseUrl(baseUrl);
   const deps: AppDeps = { config, db: database.db, clock: systemClock, logger: createLogger(config.logLevel), ...hostedDeps(hosted) };
-  const demo = options.seedDemo ? await seedDemo(deps) : null;
+  // The measured demo workspace only when asked (demoWorkspace): it takes seconds and fills every list.
+  const demo = options.seedDemo ? await seedDemo(deps, [], { workspace: options.demoWorkspace ?? false }) : null;
   const consoleDir = options.buildConsole === false ? CONSOLE_DIST : (await ensureConsoleBuilt(buildLog)).dir;
   server.on('request', createApp(deps, { consoleDir }));
 

@@ -54,8 +54,17 @@ export interface ChartSpec {
 }
 
 export interface AlignedData {
-  x: number[];
-  ys: (number | null)[][];
+  /** Ascending; typed arrays are passed through to the chart as they are. */
+  x: ArrayLike<number>;
+  ys: ArrayLike<number | null>[];
+}
+
+function allFinite(values: ArrayLike<number | null>): boolean {
+  for (let i = 0; i < values.length; i++) {
+    const value = values[i];
+    if (value === null || !Number.isFinite(value)) return false;
+  }
+  return true;
 }
 
 function sameX(a: ArrayLike<number>, b: ArrayLike<number>): boolean {
@@ -73,7 +82,9 @@ export function alignSeries(series: readonly Pick<ChartSeries, 'x' | 'y'>[]): Al
   if (series.length === 0) return { x: [], ys: [] };
   const first = series[0].x;
   if (series.every((s) => sameX(s.x, first))) {
-    return { x: Array.from(first), ys: series.map((s) => Array.from(s.y, (v) => (v === null || Number.isFinite(v) ? v : null))) };
+    // One x axis (an overlay of curves on one grid): the arrays go to the chart without a copy; only a series
+    // with non-finite values is copied, to turn them into gaps.
+    return { x: first, ys: series.map((s) => (allFinite(s.y) ? s.y : Array.from(s.y, (v) => (v === null || Number.isFinite(v) ? v : null)))) };
   }
   const union = [...new Set(series.flatMap((s) => Array.from(s.x)))].sort((a, b) => a - b);
   const position = new Map(union.map((x, i) => [x, i]));

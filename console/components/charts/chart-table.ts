@@ -7,7 +7,7 @@ export interface ChartTableRow {
   values: (number | null)[];
 }
 
-function nearestIndex(sortedX: readonly number[], target: number): number {
+function nearestIndex(sortedX: ArrayLike<number>, target: number): number {
   let low = 0;
   let high = sortedX.length - 1;
   while (high - low > 1) {

@@ -25,6 +25,7 @@ const formatX = (spec: ChartSpec, x: number) => (spec.xAxis === 'log-frequency' 
 export function LogFrequencyChart({ spec, summary, heightPx = 300, footer, onFirstDraw, className }: LogFrequencyChartProps) {
   const containerRef = useRef<HTMLDivElement>(null);
   const [cursorIndex, setCursorIndex] = useState<number | null>(null);
+  const [tableOpen, setTableOpen] = useState(false);
   const summaryId = useId();
   const data = useMemo(() => alignSeries(spec.series), [spec]);
   const listed = useMemo(() => spec.series.flatMap((series, i) => (series.auxiliary || series.visible === false ? [] : [i])), [spec]);
@@ -66,9 +67,10 @@ export function LogFrequencyChart({ spec, summary, heightPx = 300, footer, onFir
         {readout ?? <span className="text-ink-500">Point at the plot, or focus it and use ← →, to read values.</span>}
       </p>
       {footer}
-      <details className="text-xs text-ink-700">
+      {/* The table is built when opened: a closed one would cost every chart its rows of DOM for nothing. */}
+      <details className="text-xs text-ink-700" onToggle={(event) => setTableOpen(event.currentTarget.open)}>
         <summary className="cursor-pointer font-semibold text-ink-600 hover:text-ink-900">Values as a table</summary>
-        <ChartValuesTable spec={spec} rows={chartTableRows(spec, data, listed)} listed={listed} formatY={formatY} />
+        {tableOpen && <ChartValuesTable spec={spec} rows={chartTableRows(spec, data, listed)} listed={listed} formatY={formatY} />}
       </details>
     </figure>
   );

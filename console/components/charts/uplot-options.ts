@@ -9,6 +9,8 @@ const AXIS_FONT = '11px "JetBrains Mono Variable", ui-monospace, monospace';
 const LABEL_FONT = '600 12px "Manrope Variable", ui-sans-serif, sans-serif';
 /** The fonts the canvas uses; they must be loaded before the chart measures and draws text. */
 export const CHART_FONTS = ['11px "JetBrains Mono Variable"', '600 12px "Manrope Variable"'];
+/** The font strings the canvas is given, exactly as uPlot sets them. */
+export const CHART_CANVAS_FONTS = [AXIS_FONT, LABEL_FONT];
 
 function logFrequencyAxis(): Partial<uPlot.Axis> {
   return {

@@ -1,3 +1,4 @@
+import { sql } from 'drizzle-orm';
 import { double, index, int, json, longtext, mysqlTable, varchar } from 'drizzle-orm/mysql-core';
 import { idColumn, idReference, utcDatetime } from './columns.helpers';
 import { captures } from './captures';
@@ -35,6 +36,17 @@ export const analyses = mysqlTable(
     resultJson: longtext('result_json'),
     error: json('error').$type<Record<string, unknown>>(),
     verdict: varchar('verdict', { length: 16 }),
+    /**
+     * Smallest mask margin of the result (upper or lower limit; negative = violation), kept by the database from
+     * the stored result so lists can sort by it; null without a mask verdict.
+     */
+    worstMarginDb: double('worst_margin_db').generatedAlwaysAs(
+      sql`CAST(LEAST(
+        COALESCE(JSON_VALUE(result_json, '$.figures.mask.upper.worstMarginDb'), JSON_VALUE(result_json, '$.figures.mask.lower.worstMarginDb')),
+        COALESCE(JSON_VALUE(result_json, '$.figures.mask.lower.worstMarginDb'), JSON_VALUE(result_json, '$.figures.mask.upper.worstMarginDb'))
+      ) AS DOUBLE)`,
+      { mode: 'stored' },
+    ),
     calibration: json('calibration').$type<Record<string, unknown>>(),
     engineVersion: varchar('engine_version', { length: 64 }),
     createdAt: utcDatetime('created_at').notNull(),
@@ -47,5 +59,10 @@ export const analyses = mysqlTable(
     index('analyses_queue_idx').on(table.status, table.createdAt),
     index('analyses_capture_idx').on(table.captureId),
     index('analyses_dut_idx').on(table.organisationId, table.dutModel, table.dutLot),
+    // Keyset pages of GET /v1/analyses?sort=… : (organisation, sort key, id).
+    index('analyses_organisation_model_idx').on(table.organisationId, table.dutModel, table.id),
+    index('analyses_organisation_serial_idx').on(table.organisationId, table.dutSerial, table.id),
+    index('analyses_organisation_verdict_idx').on(table.organisationId, table.verdict, table.id),
+    index('analyses_organisation_margin_idx').on(table.organisationId, table.worstMarginDb, table.id),
   ],
 );

@@ -11,6 +11,7 @@ import { findUserByEmail, insertUser, listMembershipsOfUser } from '@server/modu
 import { insertMembership, listMembers } from '@server/modules/members/members.repo';
 import { insertOrganisation } from '@server/modules/organisations/organisations.repo';
 import { DEMO_API_KEY, DEMO_ORGANISATION_NAME, DEMO_SECOND_ORGANISATION_NAME, DEMO_USERS, type DemoUser } from './demo-scenario';
+import { demoWorkspace } from './demo-workspace';
 
 export interface SeededMember extends DemoUser {
   userId: string;
@@ -92,11 +93,20 @@ const secondOrganisation: SeedStep = {
 /** The steps `seedDemo` runs after the organisation and its members exist. Later data adds steps here. */
 export const DEMO_SEED_STEPS: SeedStep[] = [secondOrganisation];
 
+export interface SeedOptions {
+  /**
+   * The measured workspace (demo-workspace.ts): on by default, as `npm start` seeds it. Tests that only need the
+   * users and the demo key turn it off; it takes seconds and fills the lists.
+   */
+  workspace?: boolean;
+}
+
 /**
- * Seeds the demo organisation of Kestrel Bay Acoustics, one user per role, a second organisation and one
- * demo API key. Safe to run on every start: it only adds what is missing. `extraSteps` run last.
+ * Seeds the demo organisation of Kestrel Bay Acoustics, one user per role, a second organisation, one demo API
+ * key and the measured workspace (demo-workspace.ts). Safe to run on every start: it only adds what is missing.
+ * `extraSteps` run last.
  */
-export async function seedDemo(deps: AppDeps, extraSteps: SeedStep[] = []): Promise<DemoSeedResult> {
+export async function seedDemo(deps: AppDeps, extraSteps: SeedStep[] = [], options: SeedOptions = {}): Promise<DemoSeedResult> {
   const { organisationId, created } = await ensureOrganisation(deps);
   const seeded: SeededMember[] = [];
   for (const user of DEMO_USERS) seeded.push(await ensureMember(deps, organisationId, user));
@@ -114,6 +124,7 @@ export async function seedDemo(deps: AppDeps, extraSteps: SeedStep[] = []): Prom
   if (!keys.some((key) => key.name === DEMO_API_KEY.name)) {
     apiKeySecret = (await createApiKey(deps, ownerPrincipal, { name: DEMO_API_KEY.name, scopes: DEMO_API_KEY.scopes })).secret;
   }
-  for (const step of [...DEMO_SEED_STEPS, ...extraSteps]) await step.run(context);
+  const workspace = options.workspace === false ? [] : [demoWorkspace];
+  for (const step of [...DEMO_SEED_STEPS, ...workspace, ...extraSteps]) await step.run(context);
   return { organisationId, organisationName: DEMO_ORGANISATION_NAME, createdOrganisation: created, members: seeded, apiKeySecret };
 }

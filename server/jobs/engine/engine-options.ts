@@ -55,3 +55,13 @@ export function spectrumOptions(spec: AnalysisJobSpec) {
   };
   return { ...spec.options, ...(Object.keys(conditions).length ? { conditions } : {}) };
 }
+
+/** Options of the single-tone distortion analysis: a calibrator_check stimulus's frequency is the default tone, a calibration sets the level in dB SPL. */
+export function toneDistortionOptions(spec: AnalysisJobSpec, calibration: JobCalibration | null) {
+  const stimulusFrequencyHz = spec.stimulus?.type === 'calibrator_check' ? (spec.stimulus.parameters.frequencyHz as number | undefined) : undefined;
+  return {
+    ...spec.options,
+    ...(spec.options.toneFrequencyHz === undefined && stimulusFrequencyHz !== undefined ? { toneFrequencyHz: stimulusFrequencyHz } : {}),
+    ...(calibration ? { levelCalibration: { dbfsAtOnePascal: calibration.dbfsAtOnePascal } } : {}),
+  };
+}

@@ -17,7 +17,24 @@ export interface AnalysisJobSpec {
     statedLevelDbSpl?: number;
     statedFrequencyHz?: number;
     adcFullScaleVoltsRms?: number;
+    /** Set when the sensitivity is derived from a stored response analysis instead of a capture. */
+    source?: SensitivitySource;
   };
+}
+
+/** A calibrated response analysis a sensitivity is derived from: its curve (dB SPL) and the conditions it holds for. */
+export interface SensitivitySource {
+  analysisId: string;
+  kind: string;
+  frequencyHz: number[];
+  magnitudeDb: number[];
+  /** What the curve's dB mean, as the source result states it. */
+  magnitudeReference: string;
+  /** Microphone distance the curve holds for, m (1 when the source stated none). */
+  distanceM: number;
+  distanceStated: boolean;
+  /** The source's applied calibration, as stored with it. */
+  calibration: { id: string; dbfsAtOnePascal: number; expired: boolean } & Record<string, unknown>;
 }
 
 /** A calibration as applied by the engine, with what the result records about it. */

@@ -5,6 +5,7 @@ import {
   analyzeSweepDistortion,
   analyzeSweepResponse,
   analyzeSweepResponseAndDistortion,
+  analyzeToneDistortion,
   ENGINE_VERSION,
   readWav,
   warning,
@@ -20,9 +21,11 @@ import {
   steppedResponseOptions,
   sweepDistortionOptions,
   sweepResponseOptions,
+  toneDistortionOptions,
 } from './engine-options';
 import { applyMaskVerdict } from './mask-verdict';
 import { sensitivityResult } from './sensitivity';
+import { sensitivityFromResponse } from './sensitivity-from-response';
 
 /** Kinds whose levels depend on a calibration (the others are ratios, or carry their own reference). */
 const LEVEL_KINDS = new Set(['frequency_response', 'response_and_distortion', 'stepped_sine', 'sensitivity']);
@@ -63,7 +66,15 @@ function runEngine(task: EngineTask): AnalysisResult {
         ...(spec.calibrator!.statedFrequencyHz !== undefined ? { statedFrequencyHz: spec.calibrator!.statedFrequencyHz } : {}),
       }) as unknown as AnalysisResult;
     case 'sensitivity':
-      return sensitivityResult(decodeCapture(task), task);
+      return spec.sensitivity?.source ? sensitivityFromResponse(task) : sensitivityResult(decodeCapture(task), task);
+    case 'tone_distortion': {
+      const capture = decodeCapture(task);
+      const loopback = spec.channels.reference === null ? undefined : capture.channels[spec.channels.reference];
+      return analyzeToneDistortion(
+        { samples: capture.channels[spec.channels.measurement], sampleRateHz: capture.sampleRateHz, ...(loopback ? { loopbackSamples: loopback } : {}) },
+        toneDistortionOptions(spec, calibration) as never,
+      ) as unknown as AnalysisResult;
+    }
   }
 }
 

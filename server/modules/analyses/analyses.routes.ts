@@ -21,6 +21,13 @@ import { cancelAnalysis, getAnalysis, isTerminal, listAnalysesPage, requireAnaly
 import { preferredWaitSeconds } from './prefer-wait';
 
 const location = { location: { description: 'URL of the analysis.', schema: z.string() } };
+const pollAfter = { 'retry-after': { description: 'Seconds to wait before polling again; sent while the analysis is queued or running.', schema: z.string().optional() } };
+const waitHeaders = {
+  ...location,
+  ...pollAfter,
+  'preference-applied': { description: '`wait=N` when the request sent `Prefer: wait=N` (RFC 7240).', schema: z.string().optional() },
+  vary: { description: '`Prefer` when the request sent `Prefer: wait=N`.', schema: z.string().optional() },
+};
 const multipartAnalysisSchema = captureUploadSchema
   .extend({ analysis: z.string().meta({ description: 'The CreateAnalysisRequest as JSON text (without captureId).' }) })
   .meta({ id: 'AnalysisUpload', description: 'multipart/form-data: part `analysis` (JSON) and part `file` (the WAV).' });
@@ -67,8 +74,8 @@ export const analysisRoutes = [
       bodyContent: { 'application/json': createAnalysisRequestSchema, 'multipart/form-data': multipartAnalysisSchema },
     },
     responses: {
-      200: { description: 'Finished within the Prefer: wait time.', schema: analysisSchema, headers: location },
-      202: { description: 'Accepted; poll Location.', schema: analysisSchema, headers: location },
+      200: { description: 'Finished within the Prefer: wait time.', schema: analysisSchema, headers: waitHeaders },
+      202: { description: 'Accepted; poll Location.', schema: analysisSchema, headers: waitHeaders },
     },
     problems: ['not_found', 'invalid_parameters', 'analysis_input_mismatch', 'multipart_invalid', 'payload_too_large', 'invalid_wav', 'capture_over_limit', 'calibration_not_found', 'mask_not_found', 'quota_exceeded'],
     handler: async ({ deps, principal, req, res, idempotency }) => {
@@ -98,7 +105,7 @@ export const analysisRoutes = [
     tags: ['Analyses'],
     permission: 'analyses:read',
     request: { params: analysisParamsSchema },
-    responses: { 200: { description: 'The analysis.', schema: analysisSchema } },
+    responses: { 200: { description: 'The analysis.', schema: analysisSchema, headers: pollAfter } },
     problems: ['not_found'],
     handler: async ({ deps, principal, params }) => {
       const analysis = await getAnalysis(deps, principal.organisationId, params.analysisId);
@@ -141,7 +148,7 @@ export const analysisRoutes = [
     permission: 'analyses:write',
     idempotency: 'required',
     request: { params: analysisParamsSchema, body: rerunAnalysisRequestSchema, headers: preferHeadersSchema },
-    responses: { 200: { description: 'Finished within the Prefer: wait time.', schema: analysisSchema }, 202: { description: 'Accepted.', schema: analysisSchema, headers: location } },
+    responses: { 200: { description: 'Finished within the Prefer: wait time.', schema: analysisSchema, headers: waitHeaders }, 202: { description: 'Accepted.', schema: analysisSchema, headers: waitHeaders } },
     problems: ['not_found', 'invalid_parameters', 'analysis_input_mismatch', 'calibration_not_found', 'mask_not_found', 'quota_exceeded'],
     handler: async ({ deps, principal, params, body, req, res }) => {
       const analysisId = await rerunAnalysis(deps, principal.organisationId, params.analysisId, body);

@@ -11,13 +11,13 @@ import {
 import type { Page } from '@shared/schemas/pagination';
 import type { AppDeps } from '@server/deps';
 import { ApiProblem, notFound } from '@server/http/api-problem';
-import { decodeCursor, toPage } from '@server/http/pagination';
 import { findCapture } from '@server/modules/captures/captures.repo';
 import { releaseAnalysis } from '@server/modules/usage/usage.service';
-import { onJobFinished } from '@server/jobs/job-notifier';
+import { watchForFinish } from '@server/jobs/finish-watcher';
 import { findAnalyses, findAnalysis, listAnalyses, markCanceled, type AnalysisRow } from './analyses.repo';
 import { enqueuePrepared, prepareAnalysis, type StoredAnalysisRequest } from './analysis-create';
 import { presentAnalysis } from './analysis-presenter';
+import { decodeSortCursor, encodeSortCursor, sortSpecOf } from './analysis-sort';
 
 export async function requireAnalysisRow(deps: AppDeps, organisationId: string, analysisId: string): Promise<AnalysisRow> {
   const row = await findAnalysis(deps.db, organisationId, analysisId);
@@ -32,43 +32,47 @@ export async function getAnalysis(deps: AppDeps, organisationId: string, analysi
 export const isTerminal = (status: string) => (TERMINAL_STATUSES as readonly string[]).includes(status);
 
 /**
- * Waits up to `seconds` for the analysis to finish: woken at once by a worker in this process, and polling the
- * database (for workers in other processes). Returns the row as last read.
+ * Waits up to `seconds` for the analysis to finish: woken at once by a worker in this process, else by the shared
+ * status poll (server/jobs/finish-watcher.ts: one query per tick for all waiting requests, for workers in other
+ * processes). Returns the row as last read.
  */
 export async function waitForAnalysis(deps: AppDeps, organisationId: string, analysisId: string, seconds: number): Promise<AnalysisRow> {
-  const deadline = Date.now() + seconds * 1000;
-  for (;;) {
+  const watch = watchForFinish(deps, organisationId, analysisId, seconds * 1000);
+  try {
     const row = await requireAnalysisRow(deps, organisationId, analysisId);
-    const left = deadline - Date.now();
-    if (isTerminal(row.status) || left <= 0) return row;
-    const controller = new AbortController();
-    const stop = onJobFinished(analysisId, () => controller.abort());
-    await new Promise<void>((resolve) => {
-      const timer = setTimeout(resolve, Math.min(left, 250));
-      controller.signal.addEventListener('abort', () => {
-        clearTimeout(timer);
-        resolve();
-      });
-    });
-    stop();
+    if (isTerminal(row.status)) return row;
+    await watch.done;
+    return await requireAnalysisRow(deps, organisationId, analysisId);
+  } finally {
+    watch.cancel();
   }
 }
 
+/** A page in the requested order; the cursor is bound to the filters and the sort (another sort's cursor is a 400). */
 export async function listAnalysesPage(deps: AppDeps, organisationId: string, query: AnalysisListQuery): Promise<Page<Omit<Analysis, 'result'>>> {
   const { limit, cursor, ...filters } = query;
   const binding = { list: 'analyses', organisationId, ...filters };
-  const after = decodeCursor(deps, binding, cursor);
+  const sort = sortSpecOf(query.sort);
+  const after = decodeSortCursor(deps, binding, sort, cursor);
   const rows = await listAnalyses(deps.db, organisationId, {
     ...filters,
     createdFrom: filters.createdFrom ? new Date(filters.createdFrom) : undefined,
     createdTo: filters.createdTo ? new Date(filters.createdTo) : undefined,
     limit,
+    sort,
     after,
   });
-  return toPage(deps, binding, rows, limit, (row) => row, (row) => {
-    const { result: _result, ...rest } = presentAnalysis(row);
-    return rest;
-  });
+  const hasMore = rows.length > limit;
+  const pageRows = hasMore ? rows.slice(0, limit) : rows;
+  const last = pageRows.at(-1);
+  return {
+    data: pageRows.map((row) => {
+      const { result: _result, ...rest } = presentAnalysis(row);
+      return rest;
+    }),
+    hasMore,
+    ...(hasMore && last ? { nextCursor: encodeSortCursor(deps, binding, { key: sort.keyOf(last), id: last.id }) } : {}),
+  };
 }
 
 /** Cancels a queued or running analysis. A queued one is refunded (it never ran); a running one stays charged. */

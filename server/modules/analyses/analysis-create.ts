@@ -22,6 +22,7 @@ import type { AnalysisJobSpec } from '@server/jobs/engine/job-spec';
 import { notifyJobQueued } from '@server/jobs/job-notifier';
 import { insertAnalysis, type AnalysisRow } from './analyses.repo';
 import { validateAnalysisSpec, type CaptureFacts } from './analysis-validation';
+import { resolveSensitivitySource } from './sensitivity-source';
 
 /** What is stored in the row's `request` column: the engine spec, the references and the public summary. */
 export interface StoredAnalysisRequest {
@@ -61,7 +62,7 @@ export function specOf(request: CreateAnalysisRequest, stimulus: AnalysisJobSpec
 }
 
 export interface PreparedAnalysis {
-  row: Omit<AnalysisRow, 'organisationId'>;
+  row: Omit<AnalysisRow, 'organisationId' | 'worstMarginDb'>;
 }
 
 /** Validates the request against its capture and stimulus and builds the row to insert (status queued). */
@@ -72,9 +73,15 @@ export async function prepareAnalysis(
   capture: (CaptureFacts & { id: string | null }) | null,
   extra: { rerunOf?: string } = {},
 ): Promise<PreparedAnalysis> {
+  const derived = request.kind === 'sensitivity' && request.sensitivity?.responseAnalysisId ? await resolveSensitivitySource(deps, organisationId, request) : null;
   const { stimulus, pointer, stimulusId } = await resolveStimulus(deps, organisationId, request);
   const spec = specOf(request, stimulus);
-  validateAnalysisSpec(request, spec, capture, pointer);
+  if (derived) {
+    spec.conditions = derived.conditions;
+    spec.sensitivity = { ...spec.sensitivity!, source: derived.source };
+  } else {
+    validateAnalysisSpec(request, spec, capture, pointer);
+  }
   // Unknown calibrations and masks are refused now rather than failing the job later.
   await resolveCalibrationForAnalysis(deps, organisationId, request.calibration ?? null);
   if (request.mask) await getMaskForAnalysis(deps, organisationId, request.mask.maskId, request.mask.version);

@@ -27,6 +27,7 @@ export function presentAnalysis(row: Omit<AnalysisRow, 'resultJson'> & { resultJ
     engineVersion: row.engineVersion,
     calibration: (row.calibration as Analysis['calibration']) ?? null,
     verdict: (row.verdict as Analysis['verdict']) ?? null,
+    worstMarginDb: row.worstMarginDb ?? null,
     warnings: ((result?.warnings as Analysis['warnings']) ?? []),
     conventions: (result?.conventions as Analysis['conventions']) ?? null,
     result,

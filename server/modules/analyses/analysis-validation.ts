@@ -2,6 +2,7 @@ import { resolveSteppedResponseOptions, resolveSweepResponseOptions, type Spectr
 import { spectrumInputToCurve } from '@shared/dsp/analyses/spectrum-input';
 import { resolveSpectrumOptions } from '@shared/dsp/analyses/spectrum-options';
 import { resolveSweepDistortionOptions } from '@shared/dsp/distortion/sweep-options';
+import { resolveToneOptions } from '@shared/dsp/distortion/tone-options';
 import type { CreateAnalysisRequest } from '@shared/schemas/analyses';
 import type { StimulusType } from '@shared/schemas/stimuli';
 import { invalidField } from '@server/http/api-problem';
@@ -13,6 +14,7 @@ import {
   steppedResponseOptions,
   sweepDistortionOptions,
   sweepResponseOptions,
+  toneDistortionOptions,
 } from '@server/jobs/engine/engine-options';
 import type { AnalysisJobSpec } from '@server/jobs/engine/job-spec';
 import { withEngineErrors } from './engine-problem';
@@ -71,6 +73,16 @@ function checkSampleRate(spec: AnalysisJobSpec, capture: CaptureFacts, stimulusP
   }
 }
 
+/** The tone options as the engine will read them (segments are checked against the samples when the job runs). */
+function checkToneOptions(spec: AnalysisJobSpec, capture: CaptureFacts, calibration: { id: string; dbfsAtOnePascal: number; expired: boolean } | null) {
+  const options = toneDistortionOptions(spec, calibration);
+  resolveToneOptions(options, 'options', ['toneFrequencyHz', 'analysisSegment', 'silentSegment']);
+  const toneFrequencyHz = options.toneFrequencyHz;
+  if (toneFrequencyHz !== undefined && !(typeof toneFrequencyHz === 'number' && toneFrequencyHz > 0 && toneFrequencyHz < capture.sampleRateHz / 2)) {
+    throw invalidField('#/options/toneFrequencyHz', `options.toneFrequencyHz must lie between 0 and ${capture.sampleRateHz / 2} Hz (half the capture's sample rate).`);
+  }
+}
+
 /**
  * Everything checkable before the job runs: kind requirements, channels, sample rates and every engine option
  * (through the engine's own option resolvers). Throws 400/422 problems with pointers into the request.
@@ -117,10 +129,19 @@ export function validateAnalysisSpec(
         resolveSweepDistortionOptions(options.distortion, capture.channelCount, 'options.distortion');
       } else if (kind === 'stepped_sine') {
         resolveSteppedResponseOptions(steppedResponseOptions(spec, fakeCalibration), capture.channelCount, 'options');
+      } else if (kind === 'tone_distortion') {
+        checkToneOptions(spec, capture, fakeCalibration);
       }
     },
     { rewrite: toRequestPath },
   );
+  if (kind === 'tone_distortion') {
+    if (spec.stimulus) {
+      requireStimulusType(spec, 'calibrator_check', 'Kind tone_distortion');
+      checkSampleRate(spec, capture, stimulusPointer);
+    }
+    if (request.mask) throw invalidField('#/mask', 'Kind tone_distortion has no frequency-response curve to judge against a mask.');
+  }
   if (kind === 'stepped_sine') {
     requireStimulusType(spec, 'stepped_sine', 'Kind stepped_sine');
     checkSampleRate(spec, capture, stimulusPointer);

@@ -1,3 +1,4 @@
+import { z } from 'zod';
 import {
   apiKeyListQuerySchema,
   apiKeyPageSchema,
@@ -8,7 +9,7 @@ import {
   currentApiKeySchema,
 } from '@shared/schemas/api-keys';
 import { defineRoute } from '@server/http/define-route';
-import { createApiKey, describeCallingKey, listApiKeysPage, revokeApiKey } from './api-keys.service';
+import { createApiKey, describeCallingKey, getApiKey, listApiKeysPage, revokeApiKey } from './api-keys.service';
 
 // /api-keys/current comes first so that a later /api-keys/{keyId} cannot capture it.
 export const apiKeyRoutes = [
@@ -51,9 +52,27 @@ export const apiKeyRoutes = [
     permission: 'keys:manage',
     idempotency: 'optional',
     request: { body: createApiKeyRequestSchema },
-    responses: { 201: { description: 'The key and its secret, shown once.', schema: createdApiKeySchema } },
+    responses: {
+      201: { description: 'The key and its secret, shown once.', schema: createdApiKeySchema, headers: { location: { description: 'URL of the key (without its secret).', schema: z.string() } } },
+    },
     problems: ['scope_not_held'],
-    handler: async ({ deps, principal, body }) => ({ status: 201, body: await createApiKey(deps, principal, body) }),
+    handler: async ({ deps, principal, body }) => {
+      const created = await createApiKey(deps, principal, body);
+      return { status: 201, body: created, headers: { Location: `/v1/api-keys/${created.apiKey.id}` } };
+    },
+  }),
+  defineRoute({
+    method: 'get',
+    path: '/api-keys/{keyId}',
+    operationId: 'getApiKey',
+    summary: 'Get an API key',
+    description: 'Name, scopes, prefix, last use, expiry and status of one key. The secret is never returned.',
+    tags: ['API keys'],
+    permission: 'keys:manage',
+    request: { params: apiKeyParamsSchema },
+    responses: { 200: { description: 'The key.', schema: apiKeySchema } },
+    problems: ['not_found'],
+    handler: async ({ deps, principal, params }) => ({ status: 200, body: await getApiKey(deps, principal.organisationId, params.keyId) }),
   }),
   defineRoute({
     method: 'post',

@@ -62,6 +62,12 @@ export async function listApiKeysPage(deps: AppDeps, organisationId: string, que
   return toPage(deps, binding, rows, query.limit, (row) => row, (row) => presentApiKey(row, now));
 }
 
+export async function getApiKey(deps: AppDeps, organisationId: string, keyId: string): Promise<ApiKey> {
+  const row = await findApiKey(deps.db, organisationId, keyId);
+  if (!row) throw notFound('API key');
+  return presentApiKey(row, deps.clock.now());
+}
+
 /** Revoking twice is harmless: the second call returns the key unchanged and logs nothing. */
 export async function revokeApiKey(deps: AppDeps, principal: Principal, keyId: string): Promise<ApiKey> {
   const organisationId = principal.organisationId;

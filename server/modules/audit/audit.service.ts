@@ -29,6 +29,14 @@ export async function recordAuditEvent(db: Executor, organisationId: string, act
   });
 }
 
+/**
+ * Records the entry when the change has an actor (a request's principal); changes made by the system itself (the
+ * demo seed, the dispatcher) pass none and are not logged as someone's action.
+ */
+export async function recordAuditEventBy(db: Executor, organisationId: string, actor: Actor | undefined, entry: AuditEntry, at: Date): Promise<void> {
+  if (actor) await recordAuditEvent(db, organisationId, actor, entry, at);
+}
+
 function presentAuditEvent(row: AuditEventRow): AuditEvent {
   return {
     id: row.id,

@@ -1,3 +1,4 @@
+import { z } from 'zod';
 import { sessionSchema, signInRequestSchema, signUpRequestSchema, switchOrganisationRequestSchema } from '@shared/schemas/auth';
 import { defineRoute } from '@server/http/define-route';
 import { currentSession, signIn, signUp, switchOrganisation } from './auth.service';
@@ -15,9 +16,11 @@ export const authRoutes = [
     tags: ['Sign-in'],
     auth: 'public',
     request: { body: signUpRequestSchema },
-    responses: { 201: { description: 'Signed up and signed in.', schema: sessionSchema } },
+    responses: {
+      201: { description: 'Signed up and signed in.', schema: sessionSchema, headers: { location: { description: 'URL of the new session (GET /v1/auth/session).', schema: z.string() } } },
+    },
     problems: ['email_already_registered', 'csrf_origin_mismatch'],
-    handler: async ({ deps, res, body }) => ({ status: 201, body: await signUp(deps, res, body) }),
+    handler: async ({ deps, res, body }) => ({ status: 201, body: await signUp(deps, res, body), headers: { Location: '/v1/auth/session' } }),
   }),
   defineRoute({
     method: 'post',

@@ -42,7 +42,7 @@ export const calibrationRoutes = [
     permission: 'calibrations:write',
     request: { body: calibrationSettingsSchema },
     responses: { 200: { description: 'The settings now in force.', schema: calibrationSettingsSchema } },
-    handler: async ({ deps, principal, body }) => ({ status: 200, body: await updateCalibrationSettings(deps, principal.organisationId, body) }),
+    handler: async ({ deps, principal, body }) => ({ status: 200, body: await updateCalibrationSettings(deps, principal.organisationId, body, principal.actor) }),
   }),
   defineRoute({
     method: 'post',

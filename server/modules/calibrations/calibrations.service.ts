@@ -4,7 +4,8 @@ import type { Page } from '@shared/schemas/pagination';
 import type { AppDeps } from '@server/deps';
 import { ApiProblem, invalidField, notFound } from '@server/http/api-problem';
 import { decodeCursor, toPage } from '@server/http/pagination';
-import type { Principal } from '@server/http/principal';
+import type { Actor, Principal } from '@server/http/principal';
+import { recordAuditEvent, recordAuditEventBy } from '@server/modules/audit/audit.service';
 import { newId } from '@server/lib/ids';
 import { getOrganisationPlan, setExpiredCalibrationPolicy } from '@server/modules/usage/organisation-plan.service';
 import { calibrationFigures } from './calibration-figures';
@@ -43,18 +44,26 @@ export async function createCalibration(deps: AppDeps, principal: Principal, inp
   if (validUntil && validUntil.getTime() <= validFrom.getTime()) throw invalidField('#/validUntil', 'validUntil must lie after validFrom.');
   const figures = await calibrationFigures(deps, orgId, input);
   const id = newId('calibration');
-  await insertCalibration(deps.db, orgId, {
-    id,
-    rigId: input.rigId,
-    inputChannel: input.inputChannel,
-    source: input.source,
-    dbfsAtOnePascal: figures.dbfsAtOnePascal,
-    details: { ...figures.details, warnings: figures.warnings },
-    notes: input.notes ?? null,
-    validFrom,
-    validUntil,
-    createdByLabel: principal.actor.label.slice(0, 200),
-    createdAt: now,
+  await deps.db.transaction(async (tx) => {
+    await insertCalibration(tx, orgId, {
+      id,
+      rigId: input.rigId,
+      inputChannel: input.inputChannel,
+      source: input.source,
+      dbfsAtOnePascal: figures.dbfsAtOnePascal,
+      details: { ...figures.details, warnings: figures.warnings },
+      notes: input.notes ?? null,
+      validFrom,
+      validUntil,
+      createdByLabel: principal.actor.label.slice(0, 200),
+      createdAt: now,
+    });
+    await recordAuditEvent(tx, orgId, principal.actor, {
+      action: 'calibration.created',
+      objectType: 'calibration',
+      objectId: id,
+      details: { rigId: input.rigId, inputChannel: input.inputChannel, source: input.source, dbfsAtOnePascal: figures.dbfsAtOnePascal, validUntil: validUntil?.toISOString() ?? null },
+    }, now);
   });
   return getCalibration(deps, orgId, id);
 }
@@ -81,8 +90,17 @@ export async function getCalibrationSettings(deps: AppDeps, orgId: string): Prom
   return { expiredCalibration: (await getOrganisationPlan(deps, orgId)).expiredCalibrationPolicy };
 }
 
-export async function updateCalibrationSettings(deps: AppDeps, orgId: string, settings: CalibrationSettings): Promise<CalibrationSettings> {
+export async function updateCalibrationSettings(deps: AppDeps, orgId: string, settings: CalibrationSettings, actor?: Actor): Promise<CalibrationSettings> {
+  const before = await getCalibrationSettings(deps, orgId);
   await setExpiredCalibrationPolicy(deps, orgId, settings.expiredCalibration);
+  if (before.expiredCalibration !== settings.expiredCalibration) {
+    await recordAuditEventBy(deps.db, orgId, actor, {
+      action: 'calibration_settings.updated',
+      objectType: 'organisation',
+      objectId: orgId,
+      details: { expiredCalibration: { from: before.expiredCalibration, to: settings.expiredCalibration } },
+    }, deps.clock.now());
+  }
   return getCalibrationSettings(deps, orgId);
 }
 

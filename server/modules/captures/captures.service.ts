@@ -1,4 +1,3 @@
-import { createReadStream } from 'node:fs';
 import { readFile } from 'node:fs/promises';
 import type { Request, Response } from 'express';
 import { captureStats, isEngineError, readWav, signalStatsWarnings, type DecodedWav, type EngineError } from '@shared/dsp';
@@ -79,7 +78,8 @@ export function decodeReceivedCapture(bytes: Uint8Array, limits: UploadLimits): 
  */
 export async function commitDecodedCapture(deps: AppDeps, organisationId: string, file: ReceivedFile, decoded: DecodedCapture, captureId = newId('capture')) {
   const store = blobStoreFor(deps);
-  const stored = await store.put(createReadStream(file.path));
+  // The received file was hashed while it arrived, in the store's temp folder: it is moved into place, not copied.
+  const stored = await store.adopt(file);
   const { wav, stats } = decoded;
   const row: Omit<CaptureRow, 'organisationId'> = {
     id: captureId,

@@ -4,6 +4,7 @@ import type { AppDeps } from '@server/deps';
 import { ApiProblem } from '@server/http/api-problem';
 import { getAnalysisResults } from '@server/modules/analyses/analyses.service';
 import { problemFromEngineError } from '@server/modules/analyses/engine-problem';
+import type { Actor } from '@server/http/principal';
 import { addMaskVersion, createMaskWithVersion, getMask } from './masks.service';
 import { responseCurveOf } from './result-curve';
 
@@ -29,7 +30,7 @@ async function goldenCurves(deps: AppDeps, orgId: string, analysisIds: string[])
  * A mask from golden units: mean ± max(k·σ, minimum half-width) of their response curves at each frequency
  * (σ the sample standard deviation, n − 1), as a new mask or a new version of an existing one.
  */
-export async function deriveMask(deps: AppDeps, orgId: string, input: DeriveMaskRequest): Promise<Mask> {
+export async function deriveMask(deps: AppDeps, orgId: string, input: DeriveMaskRequest, actor?: Actor): Promise<Mask> {
   if (input.referenceLevel?.kind === 'band_mean' && !(input.referenceLevel.toHz > input.referenceLevel.fromHz)) {
     throw new ApiProblem('mask_invalid', 'referenceLevel.toHz must be above fromHz.', {
       errors: [{ in: 'body', pointer: '#/referenceLevel/toHz', detail: 'Must be above fromHz.' }],
@@ -65,8 +66,8 @@ export async function deriveMask(deps: AppDeps, orgId: string, input: DeriveMask
     },
   };
   if (input.maskId) {
-    await addMaskVersion(deps, orgId, input.maskId, content);
+    await addMaskVersion(deps, orgId, input.maskId, content, actor);
     return getMask(deps, orgId, input.maskId);
   }
-  return createMaskWithVersion(deps, orgId, input.name, content);
+  return createMaskWithVersion(deps, orgId, input.name, content, actor);
 }

@@ -39,7 +39,7 @@ export const maskRoutes = [
     responses: { 201: { description: 'The mask with the derived version as current.', schema: maskSchema, headers: location } },
     problems: ['not_found', 'golden_analyses_unusable', 'mask_invalid'],
     handler: async ({ deps, principal, body }) => {
-      const mask = await deriveMask(deps, principal.organisationId, body);
+      const mask = await deriveMask(deps, principal.organisationId, body, principal.actor);
       return { status: 201, body: mask, headers: { Location: `/v1/masks/${mask.id}` } };
     },
   }),
@@ -56,7 +56,7 @@ export const maskRoutes = [
     responses: { 201: { description: 'The mask.', schema: maskSchema, headers: location } },
     problems: ['mask_invalid'],
     handler: async ({ deps, principal, body }) => {
-      const mask = await createMask(deps, principal.organisationId, body);
+      const mask = await createMask(deps, principal.organisationId, body, principal.actor);
       return { status: 201, body: mask, headers: { Location: `/v1/masks/${mask.id}` } };
     },
   }),
@@ -120,7 +120,7 @@ export const maskRoutes = [
     },
     problems: ['not_found', 'mask_invalid'],
     handler: async ({ deps, principal, params, body }) => {
-      const version = await addMaskVersion(deps, principal.organisationId, params.maskId, body);
+      const version = await addMaskVersion(deps, principal.organisationId, params.maskId, body, principal.actor);
       return { status: 201, body: version, headers: { Location: `/v1/masks/${params.maskId}/versions/${version.version}` } };
     },
   }),

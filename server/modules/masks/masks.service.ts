@@ -5,7 +5,9 @@ import type { Executor } from '@server/db/client';
 import type { AppDeps } from '@server/deps';
 import { ApiProblem, notFound } from '@server/http/api-problem';
 import { decodeCursor, toPage } from '@server/http/pagination';
+import type { Actor } from '@server/http/principal';
 import { newId } from '@server/lib/ids';
+import { recordAuditEventBy } from '@server/modules/audit/audit.service';
 import { problemFromEngineError } from '@server/modules/analyses/engine-problem';
 import { presentMask, presentMaskSummary, presentMaskVersion } from './mask-presenter';
 import {
@@ -86,26 +88,35 @@ function versionRow(maskId: string, version: number, input: NewVersionInput, at:
   };
 }
 
-export async function createMaskWithVersion(deps: AppDeps, orgId: string, name: string, input: NewVersionInput): Promise<Mask> {
+function auditDetails(input: NewVersionInput, version: number) {
+  return { version, levelReference: input.levelReference, note: input.note ?? null, derivedFrom: (input.derivation?.analysisIds as string[] | undefined) ?? null };
+}
+
+export async function createMaskWithVersion(deps: AppDeps, orgId: string, name: string, input: NewVersionInput, actor?: Actor): Promise<Mask> {
   checkMaskContent(input);
   const id = newId('mask');
   const now = deps.clock.now();
   await deps.db.transaction(async (tx) => {
     await insertMask(tx, orgId, { id, name, latestVersion: 1, createdAt: now, updatedAt: now });
     await insertMaskVersion(tx, orgId, versionRow(id, 1, input, now));
+    await recordAuditEventBy(tx, orgId, actor, { action: 'mask.created', objectType: 'mask', objectId: id, details: { name, ...auditDetails(input, 1) } }, now);
   });
   return getMask(deps, orgId, id);
 }
 
-export async function createMask(deps: AppDeps, orgId: string, input: CreateMaskRequest): Promise<Mask> {
+export async function createMask(deps: AppDeps, orgId: string, input: CreateMaskRequest, actor?: Actor): Promise<Mask> {
   const { name, ...content } = input;
-  return createMaskWithVersion(deps, orgId, name, content);
+  return createMaskWithVersion(deps, orgId, name, content, actor);
 }
 
-export async function addMaskVersion(deps: AppDeps, orgId: string, maskId: string, input: NewVersionInput): Promise<MaskVersion> {
+export async function addMaskVersion(deps: AppDeps, orgId: string, maskId: string, input: NewVersionInput, actor?: Actor): Promise<MaskVersion> {
   checkMaskContent(input);
   const now = deps.clock.now();
-  const version = await deps.db.transaction((tx) => appendVersion(tx, orgId, maskId, input, now));
+  const version = await deps.db.transaction(async (tx) => {
+    const added = await appendVersion(tx, orgId, maskId, input, now);
+    await recordAuditEventBy(tx, orgId, actor, { action: 'mask.version_created', objectType: 'mask', objectId: maskId, details: auditDetails(input, added) }, now);
+    return added;
+  });
   const row = await findMaskVersion(deps.db, orgId, maskId, version);
   return presentMaskVersion(row!);
 }

@@ -6,7 +6,7 @@ import { listProductionRows } from './production.repo';
 import { distributionOf } from './statistics';
 
 /** The driver hands JSON_EXTRACT's value over parsed (a JSON-typed column) or as text, depending on the server. */
-function parseFigures(json: unknown): Record<string, unknown> | null {
+export function parseFigures(json: unknown): Record<string, unknown> | null {
   if (json && typeof json === 'object') return json as Record<string, unknown>;
   if (typeof json !== 'string' || json === '') return null;
   try {

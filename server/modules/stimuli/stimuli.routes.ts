@@ -1,3 +1,4 @@
+import { z } from 'zod';
 import {
   createStimulusRequestSchema,
   STIMULUS_SAFETY_NOTE,
@@ -24,7 +25,9 @@ export const stimulusRoutes = [
     permission: 'analyses:write',
     idempotency: 'required',
     request: { body: createStimulusRequestSchema },
-    responses: { 201: { description: 'The stimulus with its design figures and cautions.', schema: stimulusSchema } },
+    responses: {
+      201: { description: 'The stimulus with its design figures and cautions.', schema: stimulusSchema, headers: { location: { description: 'URL of the stimulus.', schema: z.string() } } },
+    },
     problems: ['invalid_parameters'],
     handler: async ({ deps, principal, body }) => {
       const stimulus = await createStimulus(deps, principal.organisationId, body);

@@ -18,6 +18,8 @@ export interface QuotaExceededDetails {
   unit: string;
   /** When the monthly counter starts again from zero; null for storage, which only frees up by deleting. */
   resetsAt: Date | null;
+  /** The time of the refusal; with resetsAt it sets Retry-After (seconds until the reset). */
+  now?: Date;
 }
 
 /**
@@ -25,11 +27,14 @@ export interface QuotaExceededDetails {
  * fields draft (draft-ietf-httpapi-ratelimit-headers) defines for its quota-exceeded problem type.
  */
 export function quotaExceeded(details: QuotaExceededDetails): ApiProblem {
+  const retryAfterSeconds = details.resetsAt && details.now ? Math.max(1, Math.ceil((details.resetsAt.getTime() - details.now.getTime()) / 1000)) : null;
   const resets = details.resetsAt ? ` It resets at ${details.resetsAt.toISOString()}.` : ' Delete stored data or change the plan to free space.';
   return new ApiProblem(
     'quota_exceeded',
     `The plan allows ${details.limit} ${details.unit} (${details.used} used, this request needs ${details.requested}).${resets}`,
     {
+      // Waiting frees a monthly quota, not storage: only the former gets Retry-After (RFC 9110 §10.2.3).
+      ...(retryAfterSeconds !== null ? { headers: { 'Retry-After': String(retryAfterSeconds) } } : {}),
       extensions: {
         'violated-policies': [QUOTA_POLICY_NAMES[details.quota]],
         quota: details.quota,

@@ -2,6 +2,7 @@ import type { AppDeps } from '@server/deps';
 import type { Executor } from '@server/db/client';
 import { emitEvent } from '@server/modules/webhook-endpoints/webhooks.service';
 import type { QuotaName } from './quota-problem';
+import { scheduleThresholdEmail } from './threshold-emails';
 import { insertThresholdNotice } from './usage.repo';
 
 /** Thresholds that raise a quota.threshold event, once per period each. */
@@ -21,7 +22,7 @@ export type QuotaThresholdListener = (notice: QuotaThresholdNotice) => void | Pr
 const listeners = new Set<QuotaThresholdListener>();
 
 /**
- * Hook for other channels (e-mail to the organisation's admins): called once per threshold and period, after the
+ * Hook for further channels (the e-mail to owners and admins is sent by threshold-emails.ts): called once per threshold and period, after the
  * webhook event is written. When the reserve runs inside a caller's transaction, this runs before that commits.
  * Returns an unsubscribe function.
  */
@@ -55,6 +56,8 @@ export async function noticeThresholds(
       db,
     );
     const notice: QuotaThresholdNotice = { organisationId, thresholdPercent, ...usage };
+    // Bound to this app's mailer through deps (not the process-wide listeners), so apps sharing a process stay apart.
+    scheduleThresholdEmail(deps, notice);
     for (const listener of listeners) {
       try {
         await listener(notice);

@@ -69,7 +69,7 @@ export async function reserveAnalysis(deps: AppDeps, orgId: string, input: Reser
     if (!added) {
       await deleteCharge(db, orgId, input.analysisId);
       if (analysesUsed + 1 > maxAnalyses) {
-        throw quotaExceeded({ quota: 'analyses', limit: maxAnalyses, used: analysesUsed, requested: 1, unit: 'analyses per month', resetsAt: period.end });
+        throw quotaExceeded({ quota: 'analyses', limit: maxAnalyses, used: analysesUsed, requested: 1, unit: 'analyses per month', resetsAt: period.end, now });
       }
       throw quotaExceeded({
         quota: 'audio_minutes',
@@ -78,6 +78,7 @@ export async function reserveAnalysis(deps: AppDeps, orgId: string, input: Reser
         requested: roundMinutes(audioSeconds),
         unit: 'audio minutes per month',
         resetsAt: period.end,
+        now,
       });
     }
     await noticeThresholds(deps, db, orgId, { quota: 'analyses', used: analysesUsed, limit: maxAnalyses, periodStart: period.start, periodEndsAt: period.end });

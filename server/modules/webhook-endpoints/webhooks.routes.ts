@@ -52,7 +52,7 @@ export const webhookRoutes = [
     },
     problems: ['webhook_url_not_allowed'],
     handler: async ({ deps, principal, body }) => {
-      const created = await createEndpoint(deps, principal.organisationId, body);
+      const created = await createEndpoint(deps, principal.organisationId, body, principal.actor);
       return { status: 201, body: created, headers: { Location: `/v1/webhook-endpoints/${created.endpoint.id}` } };
     },
   }),
@@ -93,7 +93,7 @@ export const webhookRoutes = [
     problems: ['not_found', 'webhook_url_not_allowed'],
     handler: async ({ deps, principal, params, body }) => ({
       status: 200,
-      body: await updateEndpointSettings(deps, principal.organisationId, params.endpointId, body),
+      body: await updateEndpointSettings(deps, principal.organisationId, params.endpointId, body, principal.actor),
     }),
   }),
   defineRoute({
@@ -108,7 +108,7 @@ export const webhookRoutes = [
     responses: { 204: { description: 'Deleted.' } },
     problems: ['not_found'],
     handler: async ({ deps, principal, params }) => {
-      await deleteEndpointById(deps, principal.organisationId, params.endpointId);
+      await deleteEndpointById(deps, principal.organisationId, params.endpointId, principal.actor);
       return { status: 204 };
     },
   }),
@@ -127,7 +127,7 @@ export const webhookRoutes = [
     problems: ['not_found'],
     handler: async ({ deps, principal, params, body }) => ({
       status: 200,
-      body: await rotateEndpointSecret(deps, principal.organisationId, params.endpointId, body.graceHours),
+      body: await rotateEndpointSecret(deps, principal.organisationId, params.endpointId, body.graceHours, principal.actor),
     }),
   }),
   defineRoute({

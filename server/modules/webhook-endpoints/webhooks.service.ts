@@ -11,7 +11,9 @@ import type { Executor } from '@server/db/client';
 import type { AppDeps } from '@server/deps';
 import { ApiProblem, notFound } from '@server/http/api-problem';
 import { decodeCursor, toPage } from '@server/http/pagination';
+import type { Actor } from '@server/http/principal';
 import { newId } from '@server/lib/ids';
+import { recordAuditEventBy } from '@server/modules/audit/audit.service';
 import { checkWebhookUrl, egressPolicyFor } from '@server/webhooks/egress-guard';
 import { buildWebhookEvent, WEBHOOK_EVENT_TYPES, type WebhookEventData, type WebhookEventType } from '@server/webhooks/events';
 import { generateWebhookSecret } from '@server/webhooks/webhook-secret';
@@ -89,23 +91,26 @@ function checkedUrl(deps: AppDeps, url: string): string {
   }
 }
 
-export async function createEndpoint(deps: AppDeps, orgId: string, input: CreateWebhookEndpointRequest): Promise<CreatedWebhookEndpoint> {
+export async function createEndpoint(deps: AppDeps, orgId: string, input: CreateWebhookEndpointRequest, actor?: Actor): Promise<CreatedWebhookEndpoint> {
   const url = checkedUrl(deps, input.url);
   const id = newId('webhookEndpoint');
   const secret = generateWebhookSecret();
   const now = deps.clock.now();
-  await insertEndpoint(deps.db, orgId, {
-    id,
-    url,
-    description: input.description ?? null,
-    eventTypes: input.eventTypes,
-    enabled: true,
-    disabledReason: null,
-    secretSealed: sealEndpointSecret(deps, id, secret),
-    previousSecretSealed: null,
-    previousSecretExpiresAt: null,
-    createdAt: now,
-    updatedAt: now,
+  await deps.db.transaction(async (tx) => {
+    await insertEndpoint(tx, orgId, {
+      id,
+      url,
+      description: input.description ?? null,
+      eventTypes: input.eventTypes,
+      enabled: true,
+      disabledReason: null,
+      secretSealed: sealEndpointSecret(deps, id, secret),
+      previousSecretSealed: null,
+      previousSecretExpiresAt: null,
+      createdAt: now,
+      updatedAt: now,
+    });
+    await recordAuditEventBy(tx, orgId, actor, { action: 'webhook_endpoint.created', objectType: 'webhook_endpoint', objectId: id, details: { url: urlForAudit(url), eventTypes: input.eventTypes } }, now);
   });
   return { endpoint: await getEndpoint(deps, orgId, id), secret };
 }
@@ -123,15 +128,39 @@ export async function listEndpointsPage(deps: AppDeps, orgId: string, query: { l
   return toPage(deps, binding, rows, query.limit, (row) => row, (row) => presentEndpoint(row, now));
 }
 
-export async function updateEndpointSettings(deps: AppDeps, orgId: string, endpointId: string, input: UpdateWebhookEndpointRequest): Promise<WebhookEndpoint> {
+/** A URL as the audit log keeps it: without query or fragment, which may carry a receiver's token. */
+function urlForAudit(url: string): string {
+  const parsed = new URL(url);
+  return `${parsed.origin}${parsed.pathname}`;
+}
+
+/** The audit action of a settings change: enabling and disabling are their own actions (they start or stop deliveries). */
+function settingsAuditAction(row: { enabled: boolean }, input: UpdateWebhookEndpointRequest) {
+  if (input.enabled !== undefined && input.enabled !== row.enabled) return input.enabled ? 'webhook_endpoint.enabled' : 'webhook_endpoint.disabled';
+  return 'webhook_endpoint.updated';
+}
+
+export async function updateEndpointSettings(
+  deps: AppDeps,
+  orgId: string,
+  endpointId: string,
+  input: UpdateWebhookEndpointRequest,
+  actor?: Actor,
+): Promise<WebhookEndpoint> {
   const row = await findEndpoint(deps.db, orgId, endpointId);
   if (!row) throw notFound('webhook endpoint');
-  await updateEndpoint(deps.db, orgId, endpointId, {
+  const now = deps.clock.now();
+  const changes = {
     ...(input.url !== undefined ? { url: checkedUrl(deps, input.url) } : {}),
     ...(input.eventTypes !== undefined ? { eventTypes: input.eventTypes } : {}),
     ...(input.description !== undefined ? { description: input.description } : {}),
     ...(input.enabled !== undefined ? { enabled: input.enabled, disabledReason: null } : {}),
-    updatedAt: deps.clock.now(),
+  };
+  await deps.db.transaction(async (tx) => {
+    await updateEndpoint(tx, orgId, endpointId, { ...changes, updatedAt: now });
+    const { disabledReason: _reason, ...changed } = changes as typeof changes & { disabledReason?: null };
+    if (changed.url !== undefined) changed.url = urlForAudit(changed.url);
+    await recordAuditEventBy(tx, orgId, actor, { action: settingsAuditAction(row, input), objectType: 'webhook_endpoint', objectId: endpointId, details: { changed } }, now);
   });
   if (input.enabled === true && !row.enabled) await wakePendingDeliveries(deps.db, orgId, endpointId, deps.clock.now());
   return getEndpoint(deps, orgId, endpointId);
@@ -143,23 +172,39 @@ export async function rotateEndpointSecret(
   orgId: string,
   endpointId: string,
   graceHours: number = DEFAULT_ROTATION_GRACE_HOURS,
+  actor?: Actor,
 ): Promise<CreatedWebhookEndpoint> {
   const row = await findEndpoint(deps.db, orgId, endpointId);
   if (!row) throw notFound('webhook endpoint');
   const now = deps.clock.now();
   const secret = generateWebhookSecret();
-  await updateEndpoint(deps.db, orgId, endpointId, {
-    secretSealed: sealEndpointSecret(deps, endpointId, secret),
-    previousSecretSealed: graceHours > 0 ? row.secretSealed : null,
-    previousSecretExpiresAt: graceHours > 0 ? new Date(now.getTime() + graceHours * 3600_000) : null,
-    updatedAt: now,
+  const previousSecretExpiresAt = graceHours > 0 ? new Date(now.getTime() + graceHours * 3600_000) : null;
+  await deps.db.transaction(async (tx) => {
+    await updateEndpoint(tx, orgId, endpointId, {
+      secretSealed: sealEndpointSecret(deps, endpointId, secret),
+      previousSecretSealed: graceHours > 0 ? row.secretSealed : null,
+      previousSecretExpiresAt,
+      updatedAt: now,
+    });
+    // Never the secret itself: only how long the old one keeps signing.
+    await recordAuditEventBy(tx, orgId, actor, {
+      action: 'webhook_endpoint.secret_rotated',
+      objectType: 'webhook_endpoint',
+      objectId: endpointId,
+      details: { graceHours, previousSecretExpiresAt: previousSecretExpiresAt?.toISOString() ?? null },
+    }, now);
   });
   return { endpoint: await getEndpoint(deps, orgId, endpointId), secret };
 }
 
-export async function deleteEndpointById(deps: AppDeps, orgId: string, endpointId: string): Promise<void> {
-  if (!(await findEndpoint(deps.db, orgId, endpointId))) throw notFound('webhook endpoint');
-  await deleteEndpoint(deps.db, orgId, endpointId);
+export async function deleteEndpointById(deps: AppDeps, orgId: string, endpointId: string, actor?: Actor): Promise<void> {
+  const row = await findEndpoint(deps.db, orgId, endpointId);
+  if (!row) throw notFound('webhook endpoint');
+  const now = deps.clock.now();
+  await deps.db.transaction(async (tx) => {
+    await deleteEndpoint(tx, orgId, endpointId);
+    await recordAuditEventBy(tx, orgId, actor, { action: 'webhook_endpoint.deleted', objectType: 'webhook_endpoint', objectId: endpointId, details: { url: urlForAudit(row.url) } }, now);
+  });
 }
 
 export async function listDeliveriesPage(

@@ -11,6 +11,8 @@ import { AnalysesFilters } from '@console/features/analyses/components/analyses-
 import { AnalysesTable } from '@console/features/analyses/components/analyses-table';
 import { BulkExportBar } from '@console/features/analyses/components/bulk-export-bar';
 import { filtersFromSearchParams, withFilters, type AnalysisFilters } from '@console/features/analyses/utils/filters';
+import { sortFromSearchParams, withSort } from '@console/features/analyses/utils/sort';
+import type { AnalysisSort } from '@shared/schemas/analyses';
 import { MAX_OVERLAY_CURVES } from '@console/features/compare/utils/overlay';
 
 const MAX_COMPARED = MAX_OVERLAY_CURVES;
@@ -18,13 +20,15 @@ const MAX_COMPARED = MAX_OVERLAY_CURVES;
 export const clientLoader =
   (queryClient: QueryClient) =>
   ({ request }: LoaderFunctionArgs) => {
-    void queryClient.prefetchInfiniteQuery(getAnalysesQueryOptions(filtersFromSearchParams(new URL(request.url).searchParams)));
+    const params = new URL(request.url).searchParams;
+    void queryClient.prefetchInfiniteQuery(getAnalysesQueryOptions(filtersFromSearchParams(params), sortFromSearchParams(params)));
     return null;
   };
 
 export default function AnalysesRoute() {
   const [searchParams, setSearchParams] = useSearchParams();
   const filters = useMemo(() => filtersFromSearchParams(searchParams), [searchParams]);
+  const sort = sortFromSearchParams(searchParams);
   const [selection, setSelection] = useState<RowSelectionState>({});
   const selectedIds = Object.keys(selection).filter((id) => selection[id]);
 
@@ -33,12 +37,17 @@ export default function AnalysesRoute() {
     setSearchParams(withFilters(searchParams, next));
   };
 
+  const applySort = (next: AnalysisSort) => {
+    setSelection({});
+    setSearchParams(withSort(searchParams, next));
+  };
+
   return (
     <>
       <PageHeader
         eyebrow="Workspace"
         title="Analyses"
-        description="Every analysis the organisation's rigs and scripts ran, newest first. Running jobs update here by themselves."
+        description="Every analysis the organisation's rigs and scripts ran, newest first unless a column header sorts it otherwise. Running jobs update here by themselves."
       />
       <Panel flush>
         <AnalysesFilters filters={filters} onChange={applyFilters} />
@@ -52,7 +61,7 @@ export default function AnalysesRoute() {
           )}
         </BulkExportBar>
         <div className="border-t border-ink-100">
-          <AnalysesTable filters={filters} selection={selection} onSelectionChange={setSelection} />
+          <AnalysesTable filters={filters} sort={sort} onSortChange={applySort} selection={selection} onSelectionChange={setSelection} />
         </div>
       </Panel>
     </>

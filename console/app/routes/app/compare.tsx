@@ -1,5 +1,6 @@
 import { useMemo } from 'react';
 import { Link, useSearchParams } from 'react-router';
+import { enableChartTiming, latestChartMarks } from '@console/components/charts/chart-timing';
 import { buttonClasses } from '@console/components/ui/button';
 import { PageHeader } from '@console/components/ui/page-header';
 import { Panel } from '@console/components/ui/panel';
@@ -13,10 +14,22 @@ import { CompareView } from '@console/features/compare/components/compare-view';
 import { MAX_OVERLAY_CURVES, type OverlayCurve } from '@console/features/compare/utils/overlay';
 import { syntheticCurves } from '@console/features/compare/utils/synthetic-curves';
 
+/** One chart built by the overlay benchmark page: ms spent in each phase up to its first draw. */
+export interface OverlayDrawTiming {
+  /** Building the uPlot options, creating the chart and its first draw. */
+  chartMs: number;
+  /** From the start of the data preparation (normalisation) to the end of the first draw: what a person waits. */
+  totalMs: number;
+  /** Normalisation, series config and the React render and commit, up to the chart effect. */
+  prepareAndRenderMs: number;
+  /** Waiting for the chart fonts (and their one-time canvas set-up). */
+  fontsMs: number;
+}
+
 declare global {
   interface Window {
-    /** Set by the overlay benchmark page: ms from creating the chart to its first draw, one entry per chart built. */
-    __sweeplineOverlayDrawsMs?: number[];
+    /** Set by the overlay benchmark page, one entry per chart built. */
+    __sweeplineOverlayDraws?: OverlayDrawTiming[];
   }
 }
 
@@ -26,15 +39,26 @@ function parseIds(value: string | null): string[] {
 
 /** `?bench=overlay`: 10 synthetic curves × 2 000 points, timed for `npm run bench:console`. */
 function BenchOverlay() {
-  const curves = useMemo(() => syntheticCurves(10, 2000), []);
+  const curves = useMemo(() => {
+    enableChartTiming();
+    return syntheticCurves(10, 2000);
+  }, []);
   return (
     <Panel title="Overlay benchmark" description="Synthetic curves; nothing is fetched.">
       <CompareView
         curves={curves}
         levelLabel="Level (dB, synthetic)"
-        onFirstDraw={(ms) => {
-          window.__sweeplineOverlayDrawsMs = [...(window.__sweeplineOverlayDrawsMs ?? []), ms];
-          document.body.dataset.benchOverlayDraws = String(window.__sweeplineOverlayDrawsMs.length);
+        onFirstDraw={(chartMs) => {
+          const marks = latestChartMarks();
+          const since = (from: number | null, to: number | null) => (from !== null && to !== null ? to - from : Number.NaN);
+          const timing: OverlayDrawTiming = {
+            chartMs,
+            totalMs: since(marks.prepare, marks.drawn),
+            prepareAndRenderMs: since(marks.prepare, marks.effect),
+            fontsMs: since(marks.effect, marks.fonts),
+          };
+          window.__sweeplineOverlayDraws = [...(window.__sweeplineOverlayDraws ?? []), timing];
+          document.body.dataset.benchOverlayDraws = String(window.__sweeplineOverlayDraws.length);
         }}
       />
     </Panel>

@@ -3,14 +3,18 @@ import { PageHeader } from '@console/components/ui/page-header';
 import { Panel } from '@console/components/ui/panel';
 import { Alert } from '@console/components/ui/alert';
 import { authKeys } from '@console/features/auth/api/keys';
-import { useSession } from '@console/features/auth/api/get-session';
+import { getSessionQueryOptions, useSession } from '@console/features/auth/api/get-session';
 import { getMembersQueryOptions } from '@console/features/members/api/get-members';
 import { MembersTable } from '@console/features/members/components/members-table';
+import { getInvitationsQueryOptions } from '@console/features/invitations/api/get-invitations';
+import { InvitationsPanel } from '@console/features/invitations/components/invitations-panel';
 import { hasPermission } from '@console/lib/authorization';
 import { ROLES, roleLabel, roleSummary } from '@console/utils/roles';
 
-export const clientLoader = (queryClient: QueryClient) => () => {
+export const clientLoader = (queryClient: QueryClient) => async () => {
   void queryClient.prefetchQuery(getMembersQueryOptions());
+  const session = await queryClient.ensureQueryData(getSessionQueryOptions());
+  if (hasPermission(session, 'members:manage')) void queryClient.prefetchQuery(getInvitationsQueryOptions());
   return null;
 };
 
@@ -57,6 +61,7 @@ export default function MembersRoute() {
           </p>
         </Panel>
       </div>
+      {canManage && <InvitationsPanel viewerIsOwner={session.activeOrganisation.role === 'owner'} className="mt-6" />}
     </>
   );
 }

@@ -5,6 +5,8 @@ import { paths } from '@console/config/paths';
 import { getSessionQueryOptions, useSession } from '@console/features/auth/api/get-session';
 import { AccountPanel } from '@console/features/auth/components/account-panel';
 import { OrganisationSwitcher } from '@console/features/auth/components/organisation-switcher';
+import { useOutboxAvailable } from '@console/features/dev-outbox/api/get-outbox';
+import { hasPermission } from '@console/lib/authorization';
 import { navigationFor } from '../../navigation';
 
 // Every screen under the shell needs a session; without one, go to sign-in and come back here afterwards.
@@ -21,6 +23,7 @@ export default function AppRoot() {
   const { data: session } = useSession();
   const location = useLocation();
   const navigate = useNavigate();
+  const devOutbox = useOutboxAvailable(hasPermission(session, 'members:manage'));
 
   // The session ended while the console was open (expired, or a 401 elsewhere cleared it).
   if (!session) {
@@ -29,7 +32,7 @@ export default function AppRoot() {
 
   return (
     <AppShell
-      navigation={navigationFor(session)}
+      navigation={navigationFor(session, { devOutbox })}
       organisationSlot={<OrganisationSwitcher session={session} />}
       accountSlot={
         <AccountPanel session={session} onSignedOut={() => navigate(paths.auth.signIn.getHref(), { replace: true })} />

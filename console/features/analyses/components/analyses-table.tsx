@@ -1,15 +1,20 @@
-import { useMemo, useState } from 'react';
-import { flexRender, getCoreRowModel, getSortedRowModel, useReactTable, type OnChangeFn, type RowSelectionState, type SortingState } from '@tanstack/react-table';
+import { useMemo } from 'react';
+import { flexRender, getCoreRowModel, useReactTable, type OnChangeFn, type RowSelectionState, type SortingState } from '@tanstack/react-table';
+import type { AnalysisSort } from '@shared/schemas/analyses';
 import { Button } from '@console/components/ui/button';
 import { EmptyState, ErrorState, LoadingState } from '@console/components/ui/states';
 import { Table, Td, Th } from '@console/components/ui/table';
 import { cn } from '@console/utils/cn';
 import { useAnalyses, type AnalysisSummary } from '../api/get-analyses';
 import { hasFilters, type AnalysisFilters } from '../utils/filters';
+import { ariaSortOf, describeSort, isSortableColumn, sortAfterClick, sortedColumnOf } from '../utils/sort';
 import { analysisColumns } from './analysis-columns';
 
 type AnalysesTableProps = {
   filters: AnalysisFilters;
+  /** The server-side order (the page's `sort` URL parameter). */
+  sort: AnalysisSort;
+  onSortChange: (sort: AnalysisSort) => void;
   selection: RowSelectionState;
   onSelectionChange: OnChangeFn<RowSelectionState>;
 };
@@ -18,12 +23,16 @@ const sortMark = { asc: '▲', desc: '▼' } as const;
 const NO_ROWS: AnalysisSummary[] = [];
 
 /**
- * The job history. Pages come from the API newest first (cursor pagination, "Load more"); the column headers
- * sort the rows loaded so far in the browser — the API has no sort parameter.
+ * The job history. The server sorts (GET /v1/analyses?sort=…) and pages with a cursor ("Load more" continues in
+ * the same order); a header button sets the URL's `sort`, so every page loaded is in one order across the whole
+ * history, not just the rows in the browser.
  */
-export function AnalysesTable({ filters, selection, onSelectionChange }: AnalysesTableProps) {
-  const analyses = useAnalyses(filters);
-  const [sorting, setSorting] = useState<SortingState>([{ id: 'createdAt', desc: true }]);
+export function AnalysesTable({ filters, sort, onSortChange, selection, onSelectionChange }: AnalysesTableProps) {
+  const analyses = useAnalyses(filters, sort);
+  const sorting = useMemo<SortingState>(() => {
+    const sorted = sortedColumnOf(sort);
+    return sorted ? [sorted] : [];
+  }, [sort]);
   // The table re-derives its rows whenever `data` changes identity, so it gets one array per fetched result.
   const rows = useMemo(() => analyses.data?.pages.flatMap((page) => page.data) ?? NO_ROWS, [analyses.data]);
   const table = useReactTable({
@@ -32,10 +41,10 @@ export function AnalysesTable({ filters, selection, onSelectionChange }: Analyse
     state: { sorting, rowSelection: selection },
     getRowId: (row) => row.id,
     autoResetAll: false,
-    onSortingChange: setSorting,
+    manualSorting: true,
+    enableMultiSort: false,
     onRowSelectionChange: onSelectionChange,
     getCoreRowModel: getCoreRowModel(),
-    getSortedRowModel: getSortedRowModel(),
   });
 
   if (analyses.isPending) return <LoadingState label="Loading analyses…" />;
@@ -52,19 +61,25 @@ export function AnalysesTable({ filters, selection, onSelectionChange }: Analyse
 
   return (
     <>
-      <Table caption="Analyses, newest first">
+      <Table caption={`Analyses, ${describeSort(sort)}`}>
         <thead>
           {table.getHeaderGroups().map((group) => (
             <tr key={group.id}>
               {group.headers.map((header) => {
-                const sorted = header.column.getIsSorted();
+                const columnId = header.column.id;
+                const sortable = header.column.getCanSort() && isSortableColumn(columnId);
+                const ariaSort = ariaSortOf(sort, columnId);
                 return (
-                  <Th key={header.id} aria-sort={sorted ? (sorted === 'asc' ? 'ascending' : 'descending') : undefined}>
-                    {header.column.getCanSort() ? (
-                      <button type="button" className="inline-flex items-center gap-1 uppercase hover:text-ink-900" onClick={header.column.getToggleSortingHandler()}>
+                  <Th key={header.id} aria-sort={ariaSort}>
+                    {sortable ? (
+                      <button
+                        type="button"
+                        className="inline-flex items-center gap-1 uppercase hover:text-ink-900 focus-visible:outline-2 focus-visible:outline-offset-2 focus-visible:outline-signal-600"
+                        onClick={() => onSortChange(sortAfterClick(sort, columnId))}
+                      >
                         {flexRender(header.column.columnDef.header, header.getContext())}
-                        <span aria-hidden="true" className={cn('text-[0.6rem]', !sorted && 'opacity-0')}>
-                          {sortMark[sorted || 'desc']}
+                        <span aria-hidden="true" className={cn('text-[0.6rem]', !ariaSort && 'opacity-0')}>
+                          {sortMark[ariaSort === 'ascending' ? 'asc' : 'desc']}
                         </span>
                       </button>
                     ) : (

@@ -8,7 +8,12 @@ import { deviceName, kindLabel } from '../utils/labels';
 import { StatusBadge, VerdictBadge } from './status-badge';
 
 const column = createColumnHelper<AnalysisSummary>();
-const verdictRank = { fail: 0, incomplete: 1, pass: 2 } as const;
+
+/** Margin to the mask in dB with its sign, so a negative (outside) margin reads as such. */
+function formatMarginDb(marginDb: number): string {
+  const rounded = Math.round(marginDb * 10) / 10;
+  return `${rounded > 0 ? '+' : rounded < 0 ? '−' : ''}${Math.abs(rounded).toFixed(1)} dB`;
+}
 
 export const analysisColumns = [
   column.display({
@@ -48,10 +53,11 @@ export const analysisColumns = [
       </div>
     ),
   }),
-  column.accessor('kind', { header: 'Kind', cell: (info) => <span className="whitespace-nowrap">{kindLabel[info.getValue()]}</span> }),
+  column.accessor('kind', { header: 'Kind', enableSorting: false, cell: (info) => <span className="whitespace-nowrap">{kindLabel[info.getValue()]}</span> }),
   column.accessor((row) => row.dut.lot ?? '', {
     id: 'lot',
     header: 'Lot',
+    enableSorting: false,
     cell: (info) => <span className="font-mono text-xs">{info.getValue() || '—'}</span>,
   }),
   column.accessor('tags', {
@@ -65,15 +71,25 @@ export const analysisColumns = [
       </div>
     ),
   }),
-  column.accessor('status', { header: 'Status', cell: ({ row }) => <StatusBadge status={row.original.status} progress={row.original.progress} /> }),
-  column.accessor((row) => (row.verdict ? verdictRank[row.verdict] : 3), {
-    id: 'verdict',
+  column.accessor('status', { header: 'Status', enableSorting: false, cell: ({ row }) => <StatusBadge status={row.original.status} progress={row.original.progress} /> }),
+  column.accessor('verdict', {
     header: 'Verdict',
     cell: ({ row }) => <VerdictBadge verdict={row.original.verdict} />,
   }),
+  column.accessor('worstMarginDb', {
+    header: 'Margin',
+    cell: (info) => {
+      const marginDb = info.getValue();
+      if (marginDb === null) return <span className="text-xs text-ink-500">—</span>;
+      return (
+        <span className={marginDb < 0 ? 'tabular font-semibold text-danger-700' : 'tabular'} title="Smallest distance to the mask limits">
+          {formatMarginDb(marginDb)}
+        </span>
+      );
+    },
+  }),
   column.accessor('createdAt', {
     header: 'Created',
-    sortingFn: 'datetime',
     cell: (info) => (
       <time dateTime={info.getValue()} title={formatDateTime(info.getValue())} className="text-xs whitespace-nowrap">
         {formatRelativeTime(info.getValue())}

@@ -9,6 +9,7 @@ export const kindLabel: Record<AnalysisKind, string> = {
   calibrator: 'Calibrator',
   sensitivity: 'Sensitivity',
   spectrum: 'Spectrum',
+  tone_distortion: 'Tone distortion',
 };
 
 export const statusLabel: Record<AnalysisStatus, string> = {

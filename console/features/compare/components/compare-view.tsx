@@ -2,6 +2,7 @@ import { useMemo, useState } from 'react';
 import { ChartLegend } from '@console/components/charts/chart-legend';
 import { overlayStyle } from '@console/components/charts/chart-palette';
 import type { ChartSpec } from '@console/components/charts/chart-spec';
+import { markChart } from '@console/components/charts/chart-timing';
 import { formatDb } from '@console/components/charts/format-units';
 import { LogFrequencyChart } from '@console/components/charts/log-frequency-chart';
 import { Alert } from '@console/components/ui/alert';
@@ -24,7 +25,10 @@ export function CompareView({ curves, levelLabel, onFirstDraw }: CompareViewProp
   const [referenceId, setReferenceId] = useState(curves[0]?.id ?? '');
   const [hidden, setHidden] = useState<Set<string>>(new Set());
 
-  const prepared = useMemo(() => prepareOverlay(curves, normalisation), [curves, normalisation]);
+  const prepared = useMemo(() => {
+    markChart('prepare');
+    return prepareOverlay(curves, normalisation);
+  }, [curves, normalisation]);
   const styles = useMemo(() => new Map(curves.map((curve, i) => [curve.id, overlayStyle(i)])), [curves]);
 
   const spec = useMemo<ChartSpec>(() => {

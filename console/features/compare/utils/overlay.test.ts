@@ -27,7 +27,23 @@ describe('overlay normalisation and difference', () => {
 
   it('keeps levels as stored with "none" and drops nulls', () => {
     const curve = { id: 'n', label: 'n', frequencyHz: [100, 200, 400], magnitudeDb: [1, null, 3] };
-    expect(prepareOverlay([curve], 'none').curves[0]).toMatchObject({ frequencyHz: [100, 400], magnitudeDb: [1, 3], referenceLevelDb: null });
+    const [prepared] = prepareOverlay([curve], 'none').curves;
+    expect(Array.from(prepared.frequencyHz)).toEqual([100, 400]);
+    expect(Array.from(prepared.magnitudeDb)).toEqual([1, 3]);
+    expect(prepared.referenceLevelDb).toBeNull();
+  });
+
+  it('reads curves on the same grid onto one shared frequency array, and the levels stay each curve\'s own', () => {
+    // Closed form: line() levels are L0 + s·log2(f / 1 kHz) on the grid 1 kHz·2^(k/3).
+    const a = line('a', 86, 0);
+    const b = line('b', 80, -1);
+    const { curves } = prepareOverlay([a, b], 'none');
+    expect(curves[1].frequencyHz).toBe(curves[0].frequencyHz);
+    curves[1].frequencyHz.forEach((f, i) => expect(curves[1].magnitudeDb[i]).toBeCloseTo(80 - Math.log2(f / 1000), 12));
+    // A second normalisation of the same curves reads them again from the cache and still normalises each one.
+    const again = prepareOverlay([a, b], 'at_1khz').curves;
+    expect(again[0].frequencyHz).toBe(curves[0].frequencyHz);
+    expect(again.map((curve) => curve.referenceLevelDb)).toEqual([86, 80]);
   });
 
   it('reports a curve that cannot be normalised instead of failing the overlay', () => {
