@@ -18,7 +18,11 @@ the console's \`Origin\`. Each operation names the permission it needs.
 **Errors.** Every error is \`application/problem+json\` (RFC 9457) with a stable \`code\` and a \`requestId\`.
 
 **Lists.** Paginated lists take \`limit\` (default 20, max 100) and \`cursor\` and answer
-\`{ data, hasMore, nextCursor? }\`, newest first.`;
+\`{ data, hasMore, nextCursor? }\`, newest first unless the list takes a \`sort\` (analyses do).
+
+**Response headers.** Creates answer with \`Location\`; authenticated responses carry \`RateLimit-Policy\` and
+\`RateLimit\` (IETF draft-ietf-httpapi-ratelimit-headers); every 429 carries \`Retry-After\` (obey it over
+\`RateLimit\`); a replay under the same \`Idempotency-Key\` carries \`Idempotent-Replayed: true\`.`;
 
 const TAGS = [
   { name: 'Service', description: 'Health of the service.' },

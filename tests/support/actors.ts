@@ -53,8 +53,8 @@ export async function signUp(
 export type Member = SignedUp & { membershipId: string; role: Role };
 
 /**
- * Adds an existing user to an organisation directly in the database (invitations are not built yet) and
- * switches that user's session to it.
+ * Adds an existing user to an organisation directly in the database (a shortcut for tests about something other
+ * than joining; tests/api/invitations.test.ts covers the real path) and switches that user's session to it.
  */
 export async function joinOrganisation(context: TestContext, user: SignedUp, organisationId: string, role: Role): Promise<Member> {
   const membershipId = newId('membership');

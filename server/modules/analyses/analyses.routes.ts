@@ -88,7 +88,10 @@ export const analysisRoutes = [
     path: '/analyses',
     operationId: 'listAnalyses',
     summary: 'List analyses',
-    description: 'Newest first, without results (GET one for the result). Filters combine with AND; `tag` matches one tag.',
+    description:
+      'Without results (GET one for the result). Filters combine with AND; `tag` matches one tag. `sort` orders the ' +
+      'whole list on the server (default `-createdAt`, newest first); `nextCursor` continues in the same order and ' +
+      'filters, and a cursor used with another sort or other filters is a 400 `invalid_cursor`.',
     tags: ['Analyses'],
     permission: 'analyses:read',
     request: { query: analysisListQuerySchema },
