@@ -72,32 +72,32 @@ describe('analyses table sorting', () => {
   it('sorts by worst margin on click: URL, aria-sort and the server order', async () => {
     await page.goto('/analyses');
     await page.getByRole('link', { name: /KB65-24-000204/ }).waitFor();
-    expect(await ariaSortOf('Created')).toBe('descending');
+    await expect.poll(() => ariaSortOf('Created')).toBe('descending');
     await page.getByRole('button', { name: 'Margin', exact: true }).click();
     await expect.poll(() => new URL(page.url()).searchParams.get('sort')).toBe('worstMarginDb');
     // Worst first: −1, +2, +5, then the one without a mask.
     await expect.poll(serialsInTable).toEqual(['KB65-24-000202', 'KB65-24-000203', 'KB65-24-000201', 'KB65-24-000204']);
-    expect(await ariaSortOf('Margin')).toBe('ascending');
-    expect(await ariaSortOf('Created')).toBeNull();
+    await expect.poll(() => ariaSortOf('Margin')).toBe('ascending');
+    await expect.poll(() => ariaSortOf('Created')).toBeNull();
     await saveScreenshot(page, 'analyses-sort-01-margin');
     await page.getByRole('button', { name: 'Margin', exact: true }).click();
     await expect.poll(() => new URL(page.url()).searchParams.get('sort')).toBe('-worstMarginDb');
     await expect.poll(serialsInTable).toEqual(['KB65-24-000201', 'KB65-24-000203', 'KB65-24-000202', 'KB65-24-000204']);
-    expect(await ariaSortOf('Margin')).toBe('descending');
+    await expect.poll(() => ariaSortOf('Margin')).toBe('descending');
   });
 
   it('sorts by keyboard: Enter and Space on a focused header button', async () => {
     await page.getByRole('button', { name: 'Verdict', exact: true }).focus();
     await page.keyboard.press('Enter');
     await expect.poll(() => new URL(page.url()).searchParams.get('sort')).toBe('verdict');
-    expect(await ariaSortOf('Verdict')).toBe('ascending');
+    await expect.poll(() => ariaSortOf('Verdict')).toBe('ascending');
     // fail < pass; ties by id; no verdict last.
     await expect.poll(async () => (await serialsInTable())[0]).toBe('KB65-24-000202');
     expect((await serialsInTable()).at(-1)).toBe('KB65-24-000204');
     await page.getByRole('button', { name: 'Created', exact: true }).focus();
     await page.keyboard.press('Space');
     await expect.poll(() => new URL(page.url()).searchParams.get('sort')).toBeNull();
-    expect(await ariaSortOf('Created')).toBe('descending');
+    await expect.poll(() => ariaSortOf('Created')).toBe('descending');
     await saveScreenshot(page, 'analyses-sort-02-keyboard');
   });
 
