@@ -78,7 +78,9 @@ export function useUplot(
         },
       );
       markChart('create');
-      const chart = new uPlot(options, [data.x, ...data.ys] as uPlot.AlignedData, element);
+      // uPlot walks the series with plain-array access patterns; typed arrays make its first path build slower.
+      const columns = [data.x, ...data.ys].map((column) => (ArrayBuffer.isView(column) ? Array.from(column as ArrayLike<number>) : column));
+      const chart = new uPlot(options, columns as uPlot.AlignedData, element);
       chartRef.current = chart;
       observer = new ResizeObserver(() => {
         const width = Math.max(element.clientWidth, 200);
