@@ -12,13 +12,13 @@ describe('console by role', () => {
   let page: Page;
   let requests: string[];
 
-  const demoUser = (role: 'admin' | 'analyst') => {
+  const demoUser = (role: 'admin' | 'analyst' | 'viewer') => {
     const user = server.demo?.members.find((member) => member.role === role);
     if (!user) throw new Error(`the demo seed has no ${role}`);
     return user;
   };
 
-  const signInAs = async (role: 'admin' | 'analyst') => {
+  const signInAs = async (role: 'admin' | 'analyst' | 'viewer') => {
     const user = demoUser(role);
     await context.clearCookies();
     await page.goto('/sign-in');
@@ -87,6 +87,39 @@ describe('console by role', () => {
     await expect.poll(() => page.getByRole('main').getByText('Tomas Reyes').count()).toBe(0);
     await page.getByRole('main').getByText(analyst.email).waitFor();
     await saveScreenshot(page, '12-members-switched-organisation');
+  });
+
+  it('shows a viewer calibrations and masks without create controls, and the API refuses the writes', async () => {
+    await signInAs('viewer');
+    await page.getByRole('navigation', { name: 'Console' }).getByRole('link', { name: 'Calibrations' }).click();
+    await page.getByText('Your role does not create calibrations').waitFor();
+    expect(await page.getByRole('heading', { name: 'Create a calibration' }).count()).toBe(0);
+
+    await page.getByRole('navigation', { name: 'Console' }).getByRole('link', { name: 'Masks' }).click();
+    await page.getByText('Your role does not create masks').waitFor();
+    expect(await page.getByRole('heading', { name: 'Create a mask from points' }).count()).toBe(0);
+    expect(await page.getByRole('heading', { name: 'Derive a mask from golden units' }).count()).toBe(0);
+    // The empty list does not point a viewer at forms it cannot see.
+    expect(await page.getByText('Create one from points below').count()).toBe(0);
+    await saveScreenshot(page, '13-masks-viewer');
+
+    // The hidden controls are a courtesy; the API refuses the viewer's session (same-origin writes pass the CSRF check).
+    const statuses = await page.evaluate(async () => {
+      const post = (url: string, body: unknown) =>
+        fetch(url, {
+          method: 'POST',
+          headers: { 'content-type': 'application/json', 'idempotency-key': crypto.randomUUID() },
+          body: JSON.stringify(body),
+        }).then(async (response) => ({ status: response.status, type: response.headers.get('content-type') ?? '' }));
+      return [
+        await post('/v1/calibrations', { rigId: 'kb65-line1', inputChannel: 0, source: { type: 'dbfs_at_1pa', dbfsAt1Pa: -38 } }),
+        await post('/v1/masks', { name: 'viewer mask', points: [] }),
+      ];
+    });
+    for (const { status, type } of statuses) {
+      expect(status).toBe(403);
+      expect(type).toContain('application/problem+json');
+    }
   });
 
   it('stayed on the loopback host', () => {

@@ -38,7 +38,7 @@ export default function MasksRoute() {
       />
       <div className="space-y-6">
         <Panel title="Masks" flush>
-          <MasksTable />
+          <MasksTable canCreate={canWrite} />
         </Panel>
         {canWrite ? (
           <>

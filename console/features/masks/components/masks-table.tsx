@@ -6,12 +6,19 @@ import { paths } from '@console/config/paths';
 import { formatDateTime } from '@console/utils/format-date';
 import { useMasks } from '../api/get-masks';
 
-export function MasksTable() {
+/** `canCreate`: whether the empty state may point at the create forms below (roles without masks:write see none). */
+export function MasksTable({ canCreate }: { canCreate: boolean }) {
   const masks = useMasks();
   if (masks.isPending) return <LoadingState label="Loading masks…" />;
   if (masks.isError) return <ErrorState error={masks.error} onRetry={() => masks.refetch()} />;
   const rows = masks.data.pages.flatMap((page) => page.data);
-  if (rows.length === 0) return <EmptyState title="No masks yet">Create one from points below, or derive one from golden units.</EmptyState>;
+  if (rows.length === 0) {
+    return (
+      <EmptyState title="No masks yet">
+        {canCreate ? 'Create one from points below, or derive one from golden units.' : 'Masks appear here once an analyst, admin or owner creates one.'}
+      </EmptyState>
+    );
+  }
   return (
     <>
       <Table caption="Tolerance masks">
