@@ -13,3 +13,4 @@ export * from './schema/calibrations';
 export * from './schema/masks';
 export * from './schema/webhooks';
 export * from './schema/invitations';
+export * from './schema/revoked-sessions';

@@ -17,6 +17,8 @@ export interface Principal {
 /** A signed-in console user, independent of any organisation (for the session endpoints). */
 export interface SignedInUser {
   userId: string;
+  /** The sign-in this session belongs to (absent for a session started in this request). */
+  sessionId?: string;
   /** The organisation the session token names; its membership may have ended since. */
   activeOrganisationId: string;
   /** Seconds since the epoch when the user signed in with a password; bounds sliding refresh. */

@@ -19,6 +19,7 @@ export const ID_PREFIXES = {
   webhookEvent: 'evt',
   webhookAttempt: 'wha',
   invitation: 'inv',
+  session: 'ses',
 } as const;
 
 export type IdKind = keyof typeof ID_PREFIXES;

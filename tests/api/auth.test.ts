@@ -1,3 +1,4 @@
+import jwt from 'jsonwebtoken';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { PERMISSIONS } from '@shared/schemas/permissions';
@@ -89,6 +90,53 @@ describe('sign-in and sign-out', () => {
     const after = await agent.get('/v1/auth/session');
     expect(after.status).toBe(401);
     expect(after.body.code).toBe('not_authenticated');
+  });
+
+  it('refuses a copy of the cookie after sign-out, on the same session and after it was re-issued by use', async () => {
+    const { email, password } = await signUp(context);
+    const agent = browserAgent(context);
+    const signedIn = await agent.post('/v1/auth/sign-in').send({ email, password });
+    const copied = sessionCookieOf(signedIn)!.split(';')[0];
+    // Another client holding a copy of the cookie (a stolen cookie, or a second tab).
+    const withCopy = () => request(context.app).get('/v1/auth/session').set('Cookie', copied);
+    expect((await withCopy()).status).toBe(200);
+
+    // Switching organisation re-issues the token; it stays the same sign-in, so signing out ends both tokens.
+    const other = await signUp(context);
+    expect(other.session.user.id).not.toBe(signedIn.body.user.id);
+    expect((await agent.post('/v1/auth/sign-out')).status).toBe(204);
+    const refused = await withCopy();
+    expect(refused.status).toBe(401);
+    expect(refused.body.code).toBe('not_authenticated');
+    expect(refused.body.detail).toMatch(/signed out/);
+    // A new sign-in is a new session and works.
+    expect((await agent.post('/v1/auth/sign-in').send({ email, password })).status).toBe(200);
+    expect((await agent.get('/v1/auth/session')).status).toBe(200);
+  });
+
+  it('keeps the session id when the token is re-issued, so sign-out also ends the older copies', async () => {
+    const { email, password, session } = await signUp(context);
+    const agent = browserAgent(context);
+    const signedIn = await agent.post('/v1/auth/sign-in').send({ email, password });
+    const first = sessionCookieOf(signedIn)!.split(';')[0];
+    // Tokens carry whole seconds: wait for the next one so the re-issued token differs from the first.
+    await new Promise((resolve) => setTimeout(resolve, 1100));
+    const switched = await agent.post('/v1/auth/active-organisation').send({ organisationId: session.activeOrganisation.id });
+    expect(switched.status).toBe(200);
+    const second = sessionCookieOf(switched)!.split(';')[0];
+    expect(second).not.toBe(first);
+    const sessionIdOf = (cookie: string) => (jwt.decode(decodeURIComponent(cookie.split('=')[1])) as { sid: string }).sid;
+    expect(sessionIdOf(second)).toBe(sessionIdOf(first));
+    expect((await agent.post('/v1/auth/sign-out')).status).toBe(204);
+    for (const cookie of [first, second]) {
+      expect((await request(context.app).get('/v1/auth/session').set('Cookie', cookie)).status).toBe(401);
+    }
+  });
+
+  it('signs out cleanly without a cookie or with a forged one', async () => {
+    const forged = `${SESSION_COOKIE}=not.a.token`;
+    expect((await browserAgent(context).post('/v1/auth/sign-out')).status).toBe(204);
+    expect((await browserAgent(context).post('/v1/auth/sign-out').set('Cookie', forged)).status).toBe(204);
   });
 
   it('answers a wrong password and an unknown e-mail identically', async () => {

@@ -2,7 +2,7 @@ import { z } from 'zod';
 import { sessionSchema, signInRequestSchema, signUpRequestSchema, switchOrganisationRequestSchema } from '@shared/schemas/auth';
 import { defineRoute } from '@server/http/define-route';
 import { currentSession, signIn, signUp, switchOrganisation } from './auth.service';
-import { clearSessionCookie } from './session-token';
+import { signOut } from './sign-out';
 
 const COOKIE_NOTE = 'Sets the `swl_session` cookie (httpOnly, SameSite=Lax, 12 hours, refreshed while in use).';
 
@@ -45,13 +45,14 @@ export const authRoutes = [
     path: '/auth/sign-out',
     operationId: 'signOut',
     summary: 'Sign out',
-    description: 'Clears the session cookie. Always succeeds.',
+    description:
+      'Ends the console session on every server process (the session id is refused from now on, even from a copy of the cookie) and clears the cookie. Always succeeds.',
     tags: ['Sign-in'],
     auth: 'public',
     responses: { 204: { description: 'Signed out.' } },
     problems: ['csrf_origin_mismatch'],
-    handler: async ({ deps, res }) => {
-      clearSessionCookie(res, deps);
+    handler: async ({ deps, req, res }) => {
+      await signOut(deps, req, res);
       return { status: 204 };
     },
   }),

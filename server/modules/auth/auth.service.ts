@@ -29,8 +29,8 @@ async function sessionView(deps: AppDeps, userId: string, activeOrganisationId: 
   };
 }
 
-function startSession(deps: AppDeps, res: Response, userId: string, organisationId: string, authTimeSeconds?: number) {
-  const session = issueSessionToken(deps, { userId, organisationId, authTimeSeconds });
+function startSession(deps: AppDeps, res: Response, userId: string, organisationId: string, authTimeSeconds?: number, sessionId?: string) {
+  const session = issueSessionToken(deps, { userId, organisationId, authTimeSeconds, sessionId });
   setSessionCookie(res, deps, session);
   return session.expiresAt;
 }
@@ -103,12 +103,12 @@ export async function currentSession(deps: AppDeps, res: Response, user: SignedI
   const expiresAt =
     active.organisationId === user.activeOrganisationId
       ? user.expiresAt
-      : startSession(deps, res, user.userId, active.organisationId, user.authTimeSeconds);
+      : startSession(deps, res, user.userId, active.organisationId, user.authTimeSeconds, user.sessionId);
   return sessionView(deps, user.userId, active.organisationId, expiresAt);
 }
 
 export async function switchOrganisation(deps: AppDeps, res: Response, user: SignedInUser, organisationId: string): Promise<Session> {
   const memberships = await listMembershipsOfUser(deps.db, user.userId);
   if (!memberships.some((membership) => membership.organisationId === organisationId)) throw notFound('organisation');
-  return sessionView(deps, user.userId, organisationId, startSession(deps, res, user.userId, organisationId, user.authTimeSeconds));
+  return sessionView(deps, user.userId, organisationId, startSession(deps, res, user.userId, organisationId, user.authTimeSeconds, user.sessionId));
 }

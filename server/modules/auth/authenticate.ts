@@ -14,15 +14,18 @@ import {
   verifySessionToken,
   type SessionClaims,
 } from './session-token';
+import { refuseRevokedSession } from './session-revocation';
 import { findMembershipOfUser, findUserById } from './users.repo';
 
 const notAuthenticated = (detail: string) => new ApiProblem('not_authenticated', detail);
 
-function sessionClaimsFrom(deps: AppDeps, req: Request, res: Response): SessionClaims {
+async function sessionClaimsFrom(deps: AppDeps, req: Request, res: Response): Promise<SessionClaims> {
   const token = (req.cookies as Record<string, string> | undefined)?.[SESSION_COOKIE];
   if (!token) throw notAuthenticated('Sign in, or send an API key as "Authorization: Bearer swl_live_…".');
   try {
-    return verifySessionToken(deps, token);
+    const claims = verifySessionToken(deps, token);
+    await refuseRevokedSession(deps, claims);
+    return claims;
   } catch (error) {
     clearSessionCookie(res, deps);
     throw error;
@@ -32,6 +35,7 @@ function sessionClaimsFrom(deps: AppDeps, req: Request, res: Response): SessionC
 function refreshIfDue(deps: AppDeps, res: Response, claims: SessionClaims): Date {
   if (!shouldRefresh(deps, claims)) return new Date(claims.expiresAtSeconds * 1000);
   const session = issueSessionToken(deps, {
+    sessionId: claims.sessionId,
     userId: claims.userId,
     organisationId: claims.organisationId,
     authTimeSeconds: claims.authTimeSeconds,
@@ -41,19 +45,19 @@ function refreshIfDue(deps: AppDeps, res: Response, claims: SessionClaims): Date
 }
 
 async function signedInUser(deps: AppDeps, req: Request, res: Response): Promise<SignedInUser> {
-  const claims = sessionClaimsFrom(deps, req, res);
+  const claims = await sessionClaimsFrom(deps, req, res);
   const user = await findUserById(deps.db, claims.userId);
   if (!user) {
     clearSessionCookie(res, deps);
     throw notAuthenticated('The account of this session no longer exists.');
   }
   const expiresAt = refreshIfDue(deps, res, claims);
-  return { userId: user.id, activeOrganisationId: claims.organisationId, authTimeSeconds: claims.authTimeSeconds, expiresAt };
+  return { userId: user.id, sessionId: claims.sessionId, activeOrganisationId: claims.organisationId, authTimeSeconds: claims.authTimeSeconds, expiresAt };
 }
 
 /** The membership is read on every request, so a removed member or changed role takes effect at once. */
 async function principalFromSession(deps: AppDeps, req: Request, res: Response): Promise<Principal> {
-  const claims = sessionClaimsFrom(deps, req, res);
+  const claims = await sessionClaimsFrom(deps, req, res);
   const [user, membership] = await Promise.all([
     findUserById(deps.db, claims.userId),
     findMembershipOfUser(deps.db, claims.organisationId, claims.userId),

@@ -3,12 +3,15 @@ import jwt from 'jsonwebtoken';
 import type { AppDeps } from '@server/deps';
 import { deriveKey } from '@server/lib/crypto';
 import { ApiProblem } from '@server/http/api-problem';
+import { newId } from '@server/lib/ids';
 
 export const SESSION_COOKIE = 'swl_session';
 const ISSUER = 'sweepline';
 const AUDIENCE = 'sweepline-console';
 
 export interface SessionClaims {
+  /** One id per sign-in, kept when the token is re-issued by use; sign-out revokes it. */
+  sessionId: string;
   userId: string;
   organisationId: string;
   authTimeSeconds: number;
@@ -34,13 +37,13 @@ const nowSeconds = (deps: AppDeps) => Math.floor(deps.clock.now().getTime() / 10
  */
 export function issueSessionToken(
   deps: AppDeps,
-  subject: { userId: string; organisationId: string; authTimeSeconds?: number },
+  subject: { userId: string; organisationId: string; authTimeSeconds?: number; sessionId?: string },
 ): { token: string; expiresAt: Date } {
   const issuedAt = nowSeconds(deps);
   const authTime = subject.authTimeSeconds ?? issuedAt;
   const expiresAtSeconds = Math.min(issuedAt + deps.config.sessionLifetimeSeconds, authTime + deps.config.sessionMaxAgeSeconds);
   const token = jwt.sign(
-    { org: subject.organisationId, auth_time: authTime, iat: issuedAt, exp: expiresAtSeconds },
+    { sid: subject.sessionId ?? newId('session'), org: subject.organisationId, auth_time: authTime, iat: issuedAt, exp: expiresAtSeconds },
     signingKey(deps.config.sessionSecret),
     { algorithm: 'HS256', subject: subject.userId, issuer: ISSUER, audience: AUDIENCE },
   );
@@ -55,8 +58,11 @@ export function verifySessionToken(deps: AppDeps, token: string): SessionClaims 
       audience: AUDIENCE,
       clockTimestamp: nowSeconds(deps),
     });
-    if (typeof payload === 'string' || typeof payload.sub !== 'string' || typeof payload.org !== 'string') throw new Error('bad claims');
+    if (typeof payload === 'string' || typeof payload.sub !== 'string' || typeof payload.org !== 'string' || typeof payload.sid !== 'string') {
+      throw new Error('bad claims');
+    }
     return {
+      sessionId: payload.sid,
       userId: payload.sub,
       organisationId: payload.org,
       authTimeSeconds: Number(payload.auth_time),

@@ -3,6 +3,7 @@ import type { Session } from '@shared/schemas/auth';
 import type { AcceptInvitationRequest, InvitationLookup } from '@shared/schemas/invitations';
 import type { AppDeps } from '@server/deps';
 import type { Executor } from '@server/db/client';
+import { refuseRevokedSession } from '@server/modules/auth/session-revocation';
 import { isDuplicateKeyError } from '@server/db/errors';
 import { newId } from '@server/lib/ids';
 import { ApiProblem } from '@server/http/api-problem';
@@ -52,10 +53,12 @@ async function optionalSignedInUser(deps: AppDeps, req: Request): Promise<(Signe
   if (!token) return null;
   try {
     const claims = verifySessionToken(deps, token);
+    await refuseRevokedSession(deps, claims);
     const user = await findUserById(deps.db, claims.userId);
     if (!user) return null;
     return {
       userId: user.id,
+      sessionId: claims.sessionId,
       email: user.email,
       activeOrganisationId: claims.organisationId,
       authTimeSeconds: claims.authTimeSeconds,
