@@ -39,6 +39,11 @@ export type Reply<R extends ResponseSpecs> = {
   [S in keyof R & number]: {
     status: S;
     headers?: Record<string, string>;
+    /**
+     * Store this reference instead of the body in the idempotency record; the route's `resolveReplay` turns it back
+     * into the same body. Only for bodies that can no longer change (a finished analysis), so the replay is exact.
+     */
+    replayFrom?: string;
   } & (R[S]['schema'] extends z.ZodType ? { body: z.input<R[S]['schema']> } : { body?: undefined });
 }[keyof R & number];
 
@@ -82,6 +87,8 @@ export interface RouteSpec<
   problems?: ProblemCode[];
   /** Idempotency-Key handling (server/http/idempotency.ts): 'required' on every POST that creates. */
   idempotency?: IdempotencyOption;
+  /** Rebuilds a body stored by reference (`replayFrom` on a reply) for an idempotent replay; null when it is gone. */
+  resolveReplay?: (deps: AppDeps, organisationId: string, reference: string) => Promise<unknown>;
   /** Count the request against the caller's per-minute rate limit (server/http/rate-limit.ts). Default: true for routes with a principal. */
   rateLimit?: boolean;
   handler(context: HandlerContext<Parsed<P>, Parsed<Q>, Parsed<B>, A>): Promise<Reply<NoInfer<R>>>;
@@ -102,11 +109,13 @@ export interface RouteDefinition {
   responses: ResponseSpecs;
   problems: ProblemCode[];
   idempotency: IdempotencySetting | null;
+  resolveReplay: ((deps: AppDeps, organisationId: string, reference: string) => Promise<unknown>) | null;
   rateLimit: boolean;
   handler(context: HandlerContext<unknown, unknown, unknown, AuthKind | undefined>): Promise<{
     status: number;
     body?: unknown;
     headers?: Record<string, string>;
+    replayFrom?: string;
   }>;
 }
 
@@ -149,6 +158,7 @@ export function defineRoute<
     responses: spec.responses,
     problems: [...new Set(problems)],
     idempotency,
+    resolveReplay: spec.resolveReplay ?? null,
     rateLimit,
     handler: spec.handler as RouteDefinition['handler'],
   };

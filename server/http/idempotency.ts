@@ -163,8 +163,12 @@ export class IdempotencyRequest implements IdempotencyHandle {
     });
   }
 
-  /** Stores the response to replay; `serialisedBody` is the body's JSON text when the caller already has it. */
-  async complete(status: number, headers: Record<string, string>, body: unknown, serialisedBody?: string): Promise<void> {
+  /**
+   * Stores the response to replay; `serialisedBody` is the body's JSON text when the caller already has it.
+   * With `replayFrom`, only that reference is stored (see `storedReplayReference`): large finished results are not
+   * written a second time.
+   */
+  async complete(status: number, headers: Record<string, string>, body: unknown, serialisedBody?: string, replayFrom?: string): Promise<void> {
     if (!this.scope || this.claimedFingerprint === null) return;
     const kept: Record<string, string> = {};
     for (const [name, value] of Object.entries(headers)) if (STORED_HEADERS.includes(name.toLowerCase())) kept[name.toLowerCase()] = value;
@@ -172,7 +176,14 @@ export class IdempotencyRequest implements IdempotencyHandle {
     await completeRecord(this.deps.db, this.scope, this.claimedFingerprint, {
       status,
       headers: kept,
-      body: body === undefined ? null : typeof body === 'string' ? body : (serialisedBody ?? JSON.stringify(body)),
+      body:
+        replayFrom !== undefined
+          ? JSON.stringify({ [REPLAY_REFERENCE_MEMBER]: replayFrom })
+          : body === undefined
+            ? null
+            : typeof body === 'string'
+              ? body
+              : (serialisedBody ?? JSON.stringify(body)),
     });
   }
 
@@ -187,13 +198,40 @@ export class IdempotencyRequest implements IdempotencyHandle {
   }
 }
 
-/** Answers with a stored response, unchanged but for the marker header. */
-export function sendReplay(res: Response, record: IdempotencyRecordRow): void {
+/** Member of a stored body that holds a reference instead of the response itself. No API body uses a "$" name. */
+const REPLAY_REFERENCE_MEMBER = '$replayFrom';
+const REPLAY_REFERENCE_PREFIX = `{"${REPLAY_REFERENCE_MEMBER}":`;
+
+/** The reference a record stores instead of its body, or null when the record holds the body itself. */
+export function storedReplayReference(record: Pick<IdempotencyRecordRow, 'responseBody'>): string | null {
+  if (!record.responseBody?.startsWith(REPLAY_REFERENCE_PREFIX)) return null;
+  const reference = (JSON.parse(record.responseBody) as Record<string, unknown>)[REPLAY_REFERENCE_MEMBER];
+  return typeof reference === 'string' ? reference : null;
+}
+
+/**
+ * Answers with a stored response, unchanged but for the marker header. A body stored by reference is rebuilt by
+ * the route's `resolveReplay` (the object it names no longer changes, so the bytes are the first answer's).
+ */
+export async function sendReplay(
+  res: Response,
+  record: IdempotencyRecordRow,
+  resolveReplay: ((reference: string) => Promise<unknown>) | null,
+): Promise<void> {
+  const reference = storedReplayReference(record);
+  let body = record.responseBody;
+  if (reference !== null) {
+    const rebuilt = resolveReplay ? await resolveReplay(reference) : null;
+    if (rebuilt === null || rebuilt === undefined) {
+      throw new ApiProblem('not_found', 'The object this request created no longer exists, so its response cannot be replayed.');
+    }
+    body = JSON.stringify(rebuilt);
+  }
   for (const [name, value] of Object.entries(record.responseHeaders ?? {})) res.setHeader(name, value);
   res.setHeader('Idempotent-Replayed', 'true');
   res.status(record.responseStatus ?? 500);
-  if (record.responseBody === null) res.end();
-  else res.send(Buffer.from(record.responseBody, 'utf8'));
+  if (body === null) res.end();
+  else res.send(Buffer.from(body, 'utf8'));
 }
 
 export async function pruneIdempotencyRecords(deps: Pick<AppDeps, 'db' | 'clock'>, batchSize = 1000): Promise<number> {

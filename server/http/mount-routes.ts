@@ -63,7 +63,7 @@ function handle(route: RouteDefinition, deps: AppDeps) {
       if (deps.config.validateResponses) checkReply(route, reply.status, reply.body);
       // Serialised once, for the stored idempotent response and for the answer (results run to hundreds of kB).
       const text = reply.body === undefined ? undefined : JSON.stringify(reply.body);
-      await idempotency?.complete(reply.status, reply.headers ?? {}, reply.body, text);
+      await idempotency?.complete(reply.status, reply.headers ?? {}, reply.body, text, reply.replayFrom);
       for (const [name, value] of Object.entries(reply.headers ?? {})) res.setHeader(name, value);
       if (text === undefined) res.status(reply.status).end();
       else {
@@ -72,7 +72,11 @@ function handle(route: RouteDefinition, deps: AppDeps) {
         res.status(reply.status).send(text);
       }
     } catch (error) {
-      if (error instanceof IdempotentReplay) return sendReplay(res, error.record);
+      if (error instanceof IdempotentReplay) {
+        const { resolveReplay } = route;
+        const organisationId = error.record.organisationId;
+        return sendReplay(res, error.record, resolveReplay ? (reference) => resolveReplay(deps, organisationId, reference) : null);
+      }
       const status = error instanceof ApiProblem ? error.status : 500;
       if (charge && isUnchargedStatus(status)) await charge.refund();
       if (idempotency) {

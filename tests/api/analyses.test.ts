@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { designSteppedSine, designSynchronizedSweep, renderSteppedSine, renderSweep } from '@shared/dsp';
-import { analyses } from '@server/db/tables';
+import { analyses, idempotencyRecords } from '@server/db/tables';
 import { eq } from 'drizzle-orm';
 import { auth, biquadFilter, biquadMagnitudeDb, idempotencyKey, measureContext, rbjPeakingCoefficients, wav, type MeasureContext } from './analyses-fixtures';
 
@@ -26,6 +26,35 @@ async function upload(bytes: Buffer, filename = 'kb65-24-000123.wav') {
   expect(response.status, JSON.stringify(response.body)).toBe(201);
   return response.body as { id: string };
 }
+
+describe('idempotent replay of a finished analysis', () => {
+  it('replays the first answer byte for byte while storing only the analysis id, not a second copy of the result', async () => {
+    const stimulus = await createSweepStimulus();
+    const capture = await upload(wav([renderSweep(designSynchronizedSweep(sweepParameters))]));
+    const key = idempotencyKey();
+    const post = () =>
+      m.api()
+        .post('/v1/analyses')
+        .set(auth(m.key))
+        .set(key)
+        .set('Prefer', 'wait=30')
+        .send({ kind: 'frequency_response', captureId: capture.id, stimulusId: stimulus.id, dut: { model: 'KB-65 woofer', serial: 'KB65-24-000777' } });
+    const first = await post();
+    expect(first.status, JSON.stringify(first.body)).toBe(200);
+    expect(first.body.status).toBe('succeeded');
+
+    const [record] = await m.context.deps.db.select().from(idempotencyRecords).where(eq(idempotencyRecords.idempotencyKey, key['Idempotency-Key']));
+    expect(record.responseBody).toBe(JSON.stringify({ $replayFrom: first.body.id }));
+
+    const replay = await post();
+    expect(replay.status).toBe(200);
+    expect(replay.headers['idempotent-replayed']).toBe('true');
+    expect(replay.headers.location).toBe(first.headers.location);
+    expect(replay.text).toBe(first.text);
+    const listed = await m.api().get('/v1/analyses').query({ serial: 'KB65-24-000777' }).set(auth(m.key));
+    expect(listed.body.data).toHaveLength(1);
+  });
+});
 
 describe('frequency response end to end', () => {
   it('recovers a known RBJ peaking filter within ±0.1 dB from 100 Hz to 10 kHz', async () => {

@@ -40,13 +40,18 @@ async function acceptedReply(deps: AppDeps, organisationId: string, analysisId: 
     headers['Preference-Applied'] = `wait=${wait}`;
     headers.Vary = 'Prefer';
     const row = await waitForAnalysis(deps, organisationId, analysisId, wait);
-    if (isTerminal(row.status)) return { status: 200 as const, body: presentAnalysis(row), headers };
+    // A finished analysis never changes again: its idempotency record keeps only the id, not a second copy of the
+    // result (results run to hundreds of kB), and a replay rebuilds the same body from the row.
+    if (isTerminal(row.status)) return { status: 200 as const, body: presentAnalysis(row), headers, replayFrom: row.id };
     res.setHeader('Retry-After', '2');
     return { status: 202 as const, body: presentAnalysis(row), headers };
   }
   headers['Retry-After'] = '2';
   return { status: 202 as const, body: await getAnalysis(deps, organisationId, analysisId), headers };
 }
+
+/** Rebuilds a finished analysis stored by reference in an idempotency record (see acceptedReply). */
+const replayFinishedAnalysis = (deps: AppDeps, organisationId: string, analysisId: string) => getAnalysis(deps, organisationId, analysisId);
 
 const WAIT_NOTE =
   '`Prefer: wait=N` (RFC 7240, N ≤ 60 s) holds the request until the analysis finishes, then answers 200 with the ' +
@@ -69,6 +74,7 @@ export const analysisRoutes = [
     tags: ['Analyses'],
     permission: 'analyses:write',
     idempotency: { mode: 'required', fingerprint: 'handler' },
+    resolveReplay: replayFinishedAnalysis,
     request: {
       headers: preferHeadersSchema,
       bodyContent: { 'application/json': createAnalysisRequestSchema, 'multipart/form-data': multipartAnalysisSchema },
@@ -150,6 +156,7 @@ export const analysisRoutes = [
     tags: ['Analyses'],
     permission: 'analyses:write',
     idempotency: 'required',
+    resolveReplay: replayFinishedAnalysis,
     request: { params: analysisParamsSchema, body: rerunAnalysisRequestSchema, headers: preferHeadersSchema },
     responses: { 200: { description: 'Finished within the Prefer: wait time.', schema: analysisSchema, headers: waitHeaders }, 202: { description: 'Accepted.', schema: analysisSchema, headers: waitHeaders } },
     problems: ['not_found', 'invalid_parameters', 'analysis_input_mismatch', 'calibration_not_found', 'mask_not_found', 'quota_exceeded'],
