@@ -1,24 +1,13 @@
-import { useId, useRef } from 'react';
+import { useRef } from 'react';
 import { Alert } from '@console/components/ui/alert';
 import { Button } from '@console/components/ui/button';
 import { Dialog } from '@console/components/ui/dialog';
-import { controlClasses } from '@console/components/ui/field';
-import { Icon } from '@console/components/ui/icons';
-import { useCopyToClipboard } from '@console/hooks/use-copy-to-clipboard';
-import { cn } from '@console/utils/cn';
+import { SecretField } from '@console/components/ui/secret-field';
 import type { CreatedApiKey } from '@shared/schemas/api-keys';
-
-const copyMessages = {
-  idle: '',
-  copied: 'Secret copied to the clipboard.',
-  failed: 'Copying was blocked by the browser. Select the secret and press Ctrl+C (⌘C on a Mac).',
-} as const;
 
 /** The only place the full secret ever appears; closing it forgets the secret for good. */
 export function ApiKeySecretDialog({ created, onClose }: { created: CreatedApiKey | null; onClose: () => void }) {
-  const secretId = useId();
   const secretRef = useRef<HTMLTextAreaElement>(null);
-  const { state, copy } = useCopyToClipboard();
 
   return (
     <Dialog
@@ -39,32 +28,7 @@ export function ApiKeySecretDialog({ created, onClose }: { created: CreatedApiKe
               create a new one.
             </p>
           </Alert>
-          <div className="space-y-1.5">
-            <label htmlFor={secretId} className="text-sm font-semibold text-ink-800">
-              Secret
-            </label>
-            <div className="flex items-start gap-2">
-              <textarea
-                id={secretId}
-                ref={secretRef}
-                readOnly
-                rows={2}
-                value={created.secret}
-                spellCheck={false}
-                autoComplete="off"
-                onFocus={(event) => event.currentTarget.select()}
-                className={cn(controlClasses, 'resize-none py-2 font-mono text-xs leading-5 break-all')}
-                data-testid="api-key-secret"
-              />
-              <Button variant="secondary" onClick={() => copy(created.secret, secretRef.current)}>
-                <Icon name={state === 'copied' ? 'check' : 'copy'} className="size-4" />
-                {state === 'copied' ? 'Copied' : 'Copy'}
-              </Button>
-            </div>
-            <p role="status" className="min-h-4 text-xs text-ink-600">
-              {copyMessages[state]}
-            </p>
-          </div>
+          <SecretField label="Secret" secret={created.secret} inputRef={secretRef} copiedMessage="Secret copied to the clipboard." testId="api-key-secret" />
           <div className="rounded-md bg-ink-950 px-4 py-3 font-mono text-xs text-ink-200">
             <p className="text-ink-400"># every request from the rig</p>
             <p>
