@@ -30,7 +30,7 @@ async function main() {
   } catch (error) {
     throw new Error(`Cannot prepare the database at ${redactUrl(config.databaseUrl)}: ${(error as Error).message}`);
   }
-  const database = createDatabase(config.databaseUrl, { connectionLimit: config.databaseConnections });
+  const database = createDatabase(config.databaseUrl, { connectionLimit: config.databaseConnections, traceStatements: config.nodeEnv !== 'production' });
   // E-mail and payments: the configured services, or (development) local fakes that catch everything.
   const hosted = await startHostedServices(
     { config, db: database.db, clock: systemClock },

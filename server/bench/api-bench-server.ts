@@ -13,13 +13,14 @@ import { installQueryCounter } from './api-bench/query-counter';
 /**
  * The server under benchmark: API + job runner with the production defaults (pool sizes, poll interval, engine
  * threads from the environment), no console. Event-loop delay, memory, CPU, engine use and SQL statement counts
- * are reported on stderr every BENCH_REPORT_MS (10 s).
+ * are reported on stderr every BENCH_REPORT_MS (10 s); SIGUSR2 reports the memory in use after a full GC (started
+ * with --expose-gc).
  */
 async function main() {
   const queries = installQueryCounter();
   const config = loadConfig();
   const logger = createLogger(config.logLevel);
-  const database = createDatabase(config.databaseUrl, { connectionLimit: config.databaseConnections });
+  const database = createDatabase(config.databaseUrl, { connectionLimit: config.databaseConnections, traceStatements: config.nodeEnv !== 'production' });
   const deps: AppDeps = { config, db: database.db, clock: systemClock, logger };
   const runner = startJobRunner(deps);
   const stopReport = startLoopDelayReport(logger, Number(process.env.BENCH_REPORT_MS ?? 10_000), () => ({ engine: runner.engineStats(), queries: queries.total, queryKinds: queries.byKeyword }));
@@ -28,6 +29,13 @@ async function main() {
   process.stdout.write(
     `listening ${(server.address() as AddressInfo).port} threads=${runner.threads} concurrency=${runner.concurrency} connections=${config.databaseConnections} validateResponses=${config.validateResponses} nodeEnv=${config.nodeEnv}\n`,
   );
+  // SIGUSR2 (from the benchmark): a full garbage collection, then the memory still in use. Comparing such settled
+  // figures from the start and the end of a run shows growth; raw samples mostly show where the GC sawtooth was.
+  process.on('SIGUSR2', () => {
+    (globalThis as { gc?: () => void }).gc?.();
+    const memory = process.memoryUsage();
+    process.stderr.write(`memory-settled ${JSON.stringify({ rssBytes: memory.rss, heapUsedBytes: memory.heapUsed, externalBytes: memory.external, arrayBuffersBytes: memory.arrayBuffers })}\n`);
+  });
   process.on('SIGTERM', () => {
     stopReport();
     server.closeAllConnections();

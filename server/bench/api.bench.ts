@@ -1,5 +1,5 @@
 import { designSynchronizedSweep, renderSweep, writeWav } from '@shared/dsp';
-import { createBenchDatabase, prepareOrganisation, startBenchServer, type ServerReport } from './api-bench/bench-setup';
+import { createBenchDatabase, prepareOrganisation, startBenchServer, type ServerReport, type SettledMemory } from './api-bench/bench-setup';
 import { printFigures, reportLine } from './api-bench/bench-report';
 import { loadAverage, processCpuSeconds } from './api-bench/proc-cpu';
 import { multipartBody, runRigLoad } from './api-bench/rig-load';
@@ -8,7 +8,8 @@ import { multipartBody, runRigLoad } from './api-bench/rig-load';
  * `npm run bench:api`: the server (own database on the test MariaDB, own blob folder, production settings) on
  * loopback; RIGS simulated rigs each post a 2 s, 48 kHz sweep capture with its frequency_response analysis in one
  * multipart request with `Prefer: wait=30`, one after another, for SECONDS seconds. Prints its configuration, a
- * memory/CPU line per server report (10 s), and the figures against issue 5's targets. Bounded; stops by itself.
+ * memory/CPU line per server report (10 s), and the figures against issue 5's targets; memory growth is judged on
+ * the server's memory after a full GC at the end of the warm-up and after the last request. Bounded; stops by itself.
  *
  * Env: BENCH_RIGS (32), BENCH_SECONDS (60), BENCH_WARMUP_SECONDS (5, not counted), BENCH_SERVER_NODE_ARGS (e.g.
  * "--cpu-prof --cpu-prof-dir=/tmp/prof" to profile the server), and the server's own SWEEPLINE_* variables
@@ -48,8 +49,10 @@ async function main() {
 
     const serverCpuStart = processCpuSeconds(server.pid);
     const databaseCpuStart = processCpuSeconds(database.serverPid);
+    const afterWarmup = new Promise<SettledMemory>((resolve) => setTimeout(() => void server.settledMemory().then(resolve), WARMUP_SECONDS * 1000));
     const load = await runRigLoad({ base: server.base, secret, body, rigs: RIGS, seconds: SECONDS, waitSeconds: WAIT_SECONDS });
     const serverCpuEnd = processCpuSeconds(server.pid);
+    const settled = { afterWarmup: await afterWarmup, atEnd: await server.settledMemory() };
     const databaseCpuEnd = processCpuSeconds(database.serverPid);
     const loadAtEnd = loadAverage();
     await server.stop();
@@ -61,6 +64,7 @@ async function main() {
       reports: server.reports,
       serverCpuSeconds: serverCpuStart === null || serverCpuEnd === null ? null : serverCpuEnd - serverCpuStart,
       databaseCpuSeconds: databaseCpuStart === null || databaseCpuEnd === null ? null : databaseCpuEnd - databaseCpuStart,
+      settled,
     });
   } finally {
     await server.stop().catch(() => undefined);

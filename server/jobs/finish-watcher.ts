@@ -1,6 +1,7 @@
 import { TERMINAL_STATUSES } from '@shared/schemas/analyses';
 import type { Database } from '@server/db/client';
 import type { AppDeps } from '@server/deps';
+import type { AnalysisRow } from '@server/modules/analyses/analyses.repo';
 import { onJobFinished } from './job-notifier';
 import { statusesByOrganisation } from './job-queue.repo';
 
@@ -10,7 +11,7 @@ export const FINISH_POLL_MS = 250;
 interface Waiter {
   organisationId: string;
   analysisId: string;
-  resolve(): void;
+  resolve(row?: AnalysisRow): void;
 }
 
 /**
@@ -71,8 +72,11 @@ class FinishWatcher {
 const watchers = new WeakMap<Database, FinishWatcher>();
 
 export interface FinishWatch {
-  /** Settles when the analysis finished (as far as this process can tell) or the time ran out. */
-  done: Promise<void>;
+  /**
+   * Settles when the analysis finished (as far as this process can tell) or the time ran out; with the finished
+   * row when a job runner in this process finished it, else with undefined (read the row).
+   */
+  done: Promise<AnalysisRow | undefined>;
   cancel(): void;
 }
 
@@ -87,18 +91,19 @@ export function watchForFinish(deps: Pick<AppDeps, 'db' | 'logger'>, organisatio
     watchers.set(deps.db, watcher);
   }
   const owner = watcher;
-  let settle!: () => void;
-  const done = new Promise<void>((resolve) => (settle = resolve));
+  let settle!: (row: AnalysisRow | undefined) => void;
+  const done = new Promise<AnalysisRow | undefined>((resolve) => (settle = resolve));
   const timer = setTimeout(() => waiter.resolve(), Math.max(0, timeoutMs));
-  const stopListening = onJobFinished(analysisId, () => waiter.resolve());
+  // The row is handed over only within its own organisation (ids are unique, the check keeps the scoping explicit).
+  const stopListening = onJobFinished(analysisId, (row) => waiter.resolve(row?.organisationId === organisationId ? row : undefined));
   const waiter: Waiter = {
     organisationId,
     analysisId,
-    resolve: () => {
+    resolve: (row?: AnalysisRow) => {
       clearTimeout(timer);
       stopListening();
       owner.remove(waiter);
-      settle();
+      settle(row);
     },
   };
   owner.add(waiter);

@@ -1,4 +1,5 @@
 import { EventEmitter } from 'node:events';
+import type { AnalysisRow } from '@server/modules/analyses/analyses.repo';
 
 /**
  * In-process signals between request handlers and the job runner: a new job (wake an idle runner now instead of
@@ -17,11 +18,15 @@ export function onJobQueued(listener: () => void): () => void {
   return () => emitter.off('queued', listener);
 }
 
-export function notifyJobFinished(analysisId: string): void {
-  emitter.emit(`finished:${analysisId}`);
+/**
+ * `row` is the finished row as this process just wrote it, when it has one: a waiting request answers from it
+ * instead of reading the row (and its ~100 kB result) back from the database.
+ */
+export function notifyJobFinished(analysisId: string, row?: AnalysisRow): void {
+  emitter.emit(`finished:${analysisId}`, row);
 }
 
-export function onJobFinished(analysisId: string, listener: () => void): () => void {
+export function onJobFinished(analysisId: string, listener: (row: AnalysisRow | undefined) => void): () => void {
   emitter.on(`finished:${analysisId}`, listener);
   return () => emitter.off(`finished:${analysisId}`, listener);
 }

@@ -1,9 +1,10 @@
 import { isEngineError } from '@shared/dsp';
 import { PROBLEMS } from '@shared/problems';
+import { transactionOnConnection } from '@server/db/prepared';
 import type { AppDeps } from '@server/deps';
 import { ApiProblem } from '@server/http/api-problem';
 import { readCaptureBytes } from '@server/modules/captures/captures.service';
-import { findAnalysis, type AnalysisRow } from '@server/modules/analyses/analyses.repo';
+import type { AnalysisRow } from '@server/modules/analyses/analyses.repo';
 import { resolveCalibrationForAnalysis, type AppliedCalibration } from '@server/modules/calibrations/calibrations.service';
 import { getMaskForAnalysis } from '@server/modules/masks/masks.service';
 import { emitEvent } from '@server/modules/webhook-endpoints/webhooks.service';
@@ -59,10 +60,34 @@ function failureOf(error: unknown): Record<string, unknown> {
   return { code: 'internal_error', title: PROBLEMS.internal_error.title, status: 500, detail: 'The analysis failed unexpectedly; it may succeed if re-run.' };
 }
 
+/**
+ * The row as `finishJob` leaves it, for requests in this process waiting on the job. JSON columns go through
+ * JSON as the database would return them, so an answer built from this row matches one built from a read.
+ */
+function finishedRow(row: AnalysisRow, outcome: Parameters<typeof finishJob>[3]): AnalysisRow {
+  const asStored = <T>(value: T | null | undefined): T | null => (value == null ? null : (JSON.parse(JSON.stringify(value)) as T));
+  return {
+    ...row,
+    status: outcome.status,
+    progress: 1,
+    resultJson: outcome.resultJson ?? null,
+    error: asStored(outcome.error),
+    verdict: outcome.verdict ?? null,
+    worstMarginDb: outcome.worstMarginDb ?? null,
+    calibration: asStored(outcome.calibration),
+    engineVersion: outcome.engineVersion ?? null,
+    leaseOwner: null,
+    leaseExpiresAt: null,
+    finishedAt: outcome.now,
+    updatedAt: outcome.now,
+  };
+}
+
 /** Final status, result and webhook event in one transaction: the event exists exactly when the status does. */
 async function finish(deps: AppDeps, row: AnalysisRow, owner: string, outcome: Parameters<typeof finishJob>[3]): Promise<boolean> {
-  const written = await deps.db.transaction(async (tx) => {
-    if (!(await finishJob(tx, row.id, owner, outcome))) return false;
+  const written = await transactionOnConnection(deps.db, async (scope) => {
+    const { tx } = scope;
+    if (!(await finishJob(scope, row.id, owner, outcome))) return false;
     const common = { id: row.id, kind: row.kind, captureId: row.captureId ?? undefined, dut: dutOf(row), url: `/v1/analyses/${row.id}` };
     if (outcome.status === 'succeeded') {
       const verdict = outcome.verdict === 'pass' || outcome.verdict === 'fail' || outcome.verdict === 'incomplete' ? outcome.verdict : null;
@@ -73,7 +98,7 @@ async function finish(deps: AppDeps, row: AnalysisRow, owner: string, outcome: P
     }
     return true;
   });
-  if (written) notifyJobFinished(row.id);
+  if (written) notifyJobFinished(row.id, finishedRow(row, outcome));
   return written;
 }
 
@@ -84,8 +109,7 @@ async function finish(deps: AppDeps, row: AnalysisRow, owner: string, outcome: P
  * attempts run out.
  */
 export async function processJob(deps: AppDeps, pool: EnginePool, job: ClaimedJob, options: ProcessOptions): Promise<'finished' | 'lost' | 'shutdown'> {
-  const row = await findAnalysis(deps.db, job.organisationId, job.id);
-  if (!row) return 'lost';
+  const { row } = job;
   const abort = new AbortController();
   const onShutdown = () => abort.abort(new Error('shutdown'));
   options.shutdown.addEventListener('abort', onShutdown);
@@ -110,6 +134,7 @@ export async function processJob(deps: AppDeps, pool: EnginePool, job: ClaimedJo
       status: 'succeeded',
       resultJson: output.resultJson,
       verdict: output.verdict,
+      worstMarginDb: output.worstMarginDb,
       engineVersion: output.engineVersion,
       calibration: applied as unknown as Record<string, unknown> | null,
       now: deps.clock.now(),

@@ -1,11 +1,16 @@
 import { and, asc, eq, inArray, isNotNull, isNull, lt, ne, or, sql } from 'drizzle-orm';
+import type { PoolConnection } from 'mysql2/promise';
 import type { Database, Executor } from '@server/db/client';
+import { executePrepared } from '@server/db/prepared';
 import { analyses } from '@server/db/tables';
+import type { AnalysisRow } from '@server/modules/analyses/analyses.repo';
 
 export interface ClaimedJob {
   id: string;
   organisationId: string;
   attempts: number;
+  /** The row as the claim left it (running, leased to the claimer): the worker needs no second read. */
+  row: AnalysisRow;
 }
 
 export interface ClaimOptions {
@@ -42,7 +47,7 @@ export async function claimNextJob(db: Database, options: ClaimOptions): Promise
   for (;;) {
     const outcome = await db.transaction(async (tx) => {
       const [row] = await tx
-        .select({ id: analyses.id, organisationId: analyses.organisationId, attempts: analyses.attempts, status: analyses.status })
+        .select()
         .from(analyses)
         .where(claimable(options.now, options.owner))
         .orderBy(asc(analyses.createdAt))
@@ -69,19 +74,17 @@ export async function claimNextJob(db: Database, options: ClaimOptions): Promise
           .where(eq(analyses.id, row.id));
         return { kind: 'exhausted' as const, id: row.id, organisationId: row.organisationId, attempts: row.attempts };
       }
-      await tx
-        .update(analyses)
-        .set({
-          status: 'running',
-          attempts: row.attempts + 1,
-          leaseOwner: options.owner,
-          leaseExpiresAt: new Date(options.now.getTime() + options.leaseSeconds * 1000),
-          startedAt: options.now,
-          updatedAt: options.now,
-          progress: 0.1,
-        })
-        .where(eq(analyses.id, row.id));
-      return { kind: 'claimed' as const, job: { id: row.id, organisationId: row.organisationId, attempts: row.attempts + 1 } };
+      const claim = {
+        status: 'running',
+        attempts: row.attempts + 1,
+        leaseOwner: options.owner,
+        leaseExpiresAt: new Date(options.now.getTime() + options.leaseSeconds * 1000),
+        startedAt: options.now,
+        updatedAt: options.now,
+        progress: 0.1,
+      };
+      await tx.update(analyses).set(claim).where(eq(analyses.id, row.id));
+      return { kind: 'claimed' as const, job: { id: row.id, organisationId: row.organisationId, attempts: claim.attempts, row: { ...row, ...claim } } };
     });
     if (outcome.kind === 'none') return null;
     if (outcome.kind === 'claimed') return outcome.job;
@@ -102,14 +105,19 @@ export interface FinishJob {
   resultJson?: string | null;
   error?: Record<string, unknown> | null;
   verdict?: string | null;
+  worstMarginDb?: number | null;
   calibration?: Record<string, unknown> | null;
   engineVersion?: string | null;
   now: Date;
 }
 
-/** Writes the outcome if the job is still ours; false when it was canceled or lost meanwhile (result discarded). */
-export async function finishJob(db: Executor, jobId: string, owner: string, outcome: FinishJob): Promise<boolean> {
-  const [result] = await db
+/**
+ * Writes the outcome if the job is still ours; false when it was canceled or lost meanwhile (result discarded).
+ * Sent as a prepared statement on the transaction's connection: the result text is the largest value the service
+ * writes, and the binary protocol carries it without escaping (server/db/prepared.ts).
+ */
+export async function finishJob(scope: { tx: Executor; connection: PoolConnection }, jobId: string, owner: string, outcome: FinishJob): Promise<boolean> {
+  const statement = scope.tx
     .update(analyses)
     .set({
       status: outcome.status,
@@ -117,6 +125,7 @@ export async function finishJob(db: Executor, jobId: string, owner: string, outc
       resultJson: outcome.resultJson ?? null,
       error: outcome.error ?? null,
       verdict: outcome.verdict ?? null,
+      worstMarginDb: outcome.worstMarginDb ?? null,
       calibration: outcome.calibration ?? null,
       engineVersion: outcome.engineVersion ?? null,
       leaseOwner: null,
@@ -125,7 +134,7 @@ export async function finishJob(db: Executor, jobId: string, owner: string, outc
       updatedAt: outcome.now,
     })
     .where(heldBy(jobId, owner));
-  return result.affectedRows === 1;
+  return (await executePrepared(scope.connection, statement)) === 1;
 }
 
 /** Puts a job back in the queue without counting the attempt (graceful shutdown). */

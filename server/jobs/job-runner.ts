@@ -46,7 +46,17 @@ export function startJobRunner(deps: AppDeps, options: JobRunnerOptions = {}): J
   const active = new Map<string, Promise<unknown>>();
   let stopping = false;
   let wake: (() => void) | null = null;
-  const unsubscribe = onJobQueued(() => wake?.());
+  // Whether the queue may hold work. A claim that finds nothing costs three statements, so after one the runner
+  // asks again only when a job is queued in this process or the poll interval has passed (jobs queued by other
+  // processes, expired leases), not each time one of its own jobs finishes.
+  let queuedSignals = 0;
+  let mayHaveWork = true;
+  let lastEmptyClaimMs = Number.NEGATIVE_INFINITY;
+  const unsubscribe = onJobQueued(() => {
+    queuedSignals += 1;
+    mayHaveWork = true;
+    wake?.();
+  });
 
   const claimOptions = {
     owner,
@@ -64,9 +74,9 @@ export function startJobRunner(deps: AppDeps, options: JobRunnerOptions = {}): J
     },
   };
 
-  const sleep = () =>
+  const sleep = (ms: number) =>
     new Promise<void>((resolve) => {
-      const timer = setTimeout(done, pollMs);
+      const timer = setTimeout(done, ms);
       function done() {
         clearTimeout(timer);
         wake = null;
@@ -88,18 +98,27 @@ export function startJobRunner(deps: AppDeps, options: JobRunnerOptions = {}): J
 
   const loop = (async () => {
     while (!stopping) {
-      if (active.size >= concurrency) {
-        await sleep();
+      const sinceEmptyClaimMs = performance.now() - lastEmptyClaimMs;
+      if (active.size >= concurrency || (!mayHaveWork && sinceEmptyClaimMs < pollMs)) {
+        await sleep(active.size >= concurrency ? pollMs : pollMs - sinceEmptyClaimMs);
         continue;
       }
+      const signalsBefore = queuedSignals;
       let job: ClaimedJob | null = null;
       try {
         job = await claimNextJob(deps.db, { ...claimOptions, now: deps.clock.now() });
       } catch (error) {
         if (!stopping) deps.logger.warn({ err: error }, 'claiming a job failed');
       }
-      if (job) start(job);
-      else await sleep();
+      if (job) {
+        mayHaveWork = true;
+        start(job);
+      } else {
+        // A job queued while this claim ran may have missed it: keep the hint then.
+        mayHaveWork = queuedSignals !== signalsBefore;
+        lastEmptyClaimMs = performance.now();
+        if (!mayHaveWork) await sleep(pollMs);
+      }
     }
   })();
 

@@ -12,7 +12,7 @@ import { startJobRunner } from './job-runner';
 async function main() {
   const config = loadConfig();
   const logger = createLogger(config.logLevel);
-  const database = createDatabase(config.databaseUrl, { connectionLimit: config.databaseConnections });
+  const database = createDatabase(config.databaseUrl, { connectionLimit: config.databaseConnections, traceStatements: config.nodeEnv !== 'production' });
   const deps: AppDeps = { config, db: database.db, clock: systemClock, logger };
   const runner = startJobRunner(deps, {
     pollMs: 100,

@@ -34,6 +34,14 @@ export interface ServerReport {
   engine: { completed: number; queued: number; runTimeP50Ms: number; runTimeP99Ms: number; waitTimeP50Ms: number; utilization: number };
 }
 
+/** The server's memory right after a full garbage collection (its SIGUSR2 answer). */
+export interface SettledMemory {
+  rssBytes: number;
+  heapUsedBytes: number;
+  externalBytes: number;
+  arrayBuffersBytes: number;
+}
+
 export interface BenchServer {
   base: string;
   pid: number;
@@ -44,6 +52,8 @@ export interface BenchServer {
   nodeEnv: string;
   reports: ServerReport[];
   onReport(listener: (report: ServerReport) => void): void;
+  /** Asks the server for a full GC and the memory still in use afterwards. */
+  settledMemory(): Promise<SettledMemory>;
   stop(): Promise<void>;
 }
 
@@ -92,7 +102,7 @@ export async function createBenchDatabase(): Promise<{ url: string; serverPid: n
 export async function startBenchServer(databaseUrl: string, options: { nodeArgs: string[]; env: Record<string, string> }): Promise<BenchServer> {
   const port = await freeLoopbackPort();
   const blobDir = await mkdtemp(path.join(os.tmpdir(), 'swl-bench-blobs-'));
-  const child: ChildProcess = spawn(process.execPath, [...options.nodeArgs, '--import', 'tsx', 'server/bench/api-bench-server.ts'], {
+  const child: ChildProcess = spawn(process.execPath, ['--expose-gc', ...options.nodeArgs, '--import', 'tsx', 'server/bench/api-bench-server.ts'], {
     env: {
       ...process.env,
       NODE_ENV: 'production',
@@ -110,6 +120,7 @@ export async function startBenchServer(databaseUrl: string, options: { nodeArgs:
   });
   const reports: ServerReport[] = [];
   const listeners: Array<(report: ServerReport) => void> = [];
+  const settledWaiters: Array<(memory: SettledMemory) => void> = [];
   let pending = '';
   child.stderr!.on('data', (chunk: Buffer) => {
     pending += chunk.toString();
@@ -120,6 +131,9 @@ export async function startBenchServer(databaseUrl: string, options: { nodeArgs:
         const report = JSON.parse(line.slice(11)) as ServerReport;
         reports.push(report);
         listeners.forEach((listener) => listener(report));
+      } else if (line.startsWith('memory-settled ')) {
+        const memory = JSON.parse(line.slice(15)) as SettledMemory;
+        settledWaiters.splice(0).forEach((resolve) => resolve(memory));
       } else if (line.trim()) process.stderr.write(`[server] ${line}\n`);
     }
   });
@@ -149,6 +163,11 @@ export async function startBenchServer(databaseUrl: string, options: { nodeArgs:
     nodeEnv: ready[6],
     reports,
     onReport: (listener) => listeners.push(listener),
+    settledMemory: () =>
+      new Promise<SettledMemory>((resolve) => {
+        settledWaiters.push(resolve);
+        child.kill('SIGUSR2');
+      }),
     stop: () => (stopped ??= stopChild()),
   };
 }

@@ -28,7 +28,12 @@ export function installQueryCounter(): QueryCounts {
     const original = base[method];
     base[method] = function counted(this: unknown, ...args: unknown[]) {
       const keyword = keywordOf(args[0]);
-      if (logStatements) process.stderr.write(`sql ${(typeof args[0] === 'string' ? args[0] : (args[0] as { sql?: string }).sql ?? '').slice(0, 160).replace(/\s+/g, ' ')}\n`);
+      if (logStatements) {
+        const text = typeof args[0] === 'string' ? args[0] : (args[0] as { sql?: string }).sql ?? '';
+        const values = Array.isArray(args[1]) ? (args[1] as unknown[]) : [];
+        const valueChars = values.reduce<number>((sum, value) => sum + (typeof value === 'string' ? value.length : 8), 0);
+        process.stderr.write(`sql [${text.length} + ${valueChars} chars of values] ${text.slice(0, 160).replace(/\s+/g, ' ')}\n`);
+      }
       counts.total += 1;
       counts.byKeyword[keyword] = (counts.byKeyword[keyword] ?? 0) + 1;
       return original.apply(this, args);

@@ -1,4 +1,3 @@
-import { sql } from 'drizzle-orm';
 import { double, index, int, json, longtext, mysqlTable, varchar } from 'drizzle-orm/mysql-core';
 import { idColumn, idReference, utcDatetime } from './columns.helpers';
 import { captures } from './captures';
@@ -37,16 +36,11 @@ export const analyses = mysqlTable(
     error: json('error').$type<Record<string, unknown>>(),
     verdict: varchar('verdict', { length: 16 }),
     /**
-     * Smallest mask margin of the result (upper or lower limit; negative = violation), kept by the database from
-     * the stored result so lists can sort by it; null without a mask verdict.
+     * Smallest mask margin of the stored result (upper or lower limit; negative = violation), written with the result
+     * so lists can sort by it; null without a mask verdict. Written by the job, not derived by the database from the
+     * result text: a generated column re-parsed the whole result (~100 kB of JSON) on every update of the row.
      */
-    worstMarginDb: double('worst_margin_db').generatedAlwaysAs(
-      sql`CAST(LEAST(
-        COALESCE(JSON_VALUE(result_json, '$.figures.mask.upper.worstMarginDb'), JSON_VALUE(result_json, '$.figures.mask.lower.worstMarginDb')),
-        COALESCE(JSON_VALUE(result_json, '$.figures.mask.lower.worstMarginDb'), JSON_VALUE(result_json, '$.figures.mask.upper.worstMarginDb'))
-      ) AS DOUBLE)`,
-      { mode: 'stored' },
-    ),
+    worstMarginDb: double('worst_margin_db'),
     calibration: json('calibration').$type<Record<string, unknown>>(),
     engineVersion: varchar('engine_version', { length: 64 }),
     createdAt: utcDatetime('created_at').notNull(),

@@ -82,6 +82,7 @@ export function startDemoEngine(threads: number): DemoEngine {
         attempts: 1,
         resultJson: output.resultJson,
         verdict: output.verdict,
+        worstMarginDb: output.worstMarginDb,
         calibration: applied as unknown as Record<string, unknown> | null,
         engineVersion: output.engineVersion,
         startedAt: new Date(createdAt.getTime() + 200),

@@ -57,6 +57,8 @@ export interface EngineTaskOutput {
   /** The result envelope serialised once, stored and returned as this exact text. */
   resultJson: string;
   verdict: 'pass' | 'fail' | 'incomplete' | null;
+  /** The smaller of the stored upper and lower worst mask margins, dB; null without a mask verdict (list sorting). */
+  worstMarginDb: number | null;
   engineVersion: string;
 }
 

@@ -26,6 +26,7 @@ import {
 import { applyMaskVerdict } from './mask-verdict';
 import { sensitivityResult } from './sensitivity';
 import { sensitivityFromResponse } from './sensitivity-from-response';
+import { STORED_PRECISION_CONVENTION, withStoredPrecision } from './stored-precision';
 
 /** Kinds whose levels depend on a calibration (the others are ratios, or carry their own reference). */
 const LEVEL_KINDS = new Set(['frequency_response', 'response_and_distortion', 'stepped_sine', 'sensitivity']);
@@ -78,9 +79,17 @@ function runEngine(task: EngineTask): AnalysisResult {
   }
 }
 
+/** The smaller of the upper and lower limits' worst margins in `figures.mask`, as stored; null without either. */
+function worstMarginOf(result: AnalysisResult): number | null {
+  const mask = (result.figures as { mask?: { upper?: { worstMarginDb?: number } | null; lower?: { worstMarginDb?: number } | null } | null }).mask;
+  const margins = [mask?.upper?.worstMarginDb, mask?.lower?.worstMarginDb].filter((margin): margin is number => typeof margin === 'number');
+  return margins.length ? Math.min(...margins) : null;
+}
+
 /**
  * Runs one analysis, adds the calibration warnings and the mask verdict, and serialises the result once: the
- * stored text is what every later read returns. Pure: the same task gives the same text.
+ * stored text is what every later read returns. Pure: the same task gives the same text. The stored numbers keep
+ * 7 significant digits (stored-precision.ts), and the mask verdict is judged on them.
  */
 export function runAnalysis(task: EngineTask): EngineTaskOutput {
   const result = runEngine(task);
@@ -93,7 +102,15 @@ export function runAnalysis(task: EngineTask): EngineTaskOutput {
   if (task.calibration?.expired) {
     extra.push(warning('calibration_expired', `Calibration ${task.calibration.id} had expired when the analysis ran; absolute levels may be off.`, { calibrationId: task.calibration.id }));
   }
-  const withWarnings: AnalysisResult = { ...result, warnings: [...result.warnings, ...extra] };
-  const { result: judged, verdict } = applyMaskVerdict(withWarnings, task);
-  return { resultJson: JSON.stringify(judged), verdict, engineVersion: ENGINE_VERSION };
+  const rounded = withStoredPrecision({
+    ...result,
+    conventions: { ...result.conventions, numberPrecision: STORED_PRECISION_CONVENTION },
+    warnings: [...result.warnings, ...extra],
+  });
+  // Judged on the stored numbers, so the verdict follows from what every reader gets back (and a mask derived
+  // from stored golden curves lines up with the grid it is later judged on); the verdict's own figures are
+  // rounded the same way.
+  const { result: judged, verdict } = applyMaskVerdict(rounded, task);
+  const stored = judged === rounded ? rounded : { ...judged, figures: { ...judged.figures, mask: withStoredPrecision((judged.figures as { mask?: unknown }).mask) } };
+  return { resultJson: JSON.stringify(stored), verdict, worstMarginDb: worstMarginOf(stored), engineVersion: ENGINE_VERSION };
 }

@@ -41,8 +41,7 @@ export async function waitForAnalysis(deps: AppDeps, organisationId: string, ana
   try {
     const row = await requireAnalysisRow(deps, organisationId, analysisId);
     if (isTerminal(row.status)) return row;
-    await watch.done;
-    return await requireAnalysisRow(deps, organisationId, analysisId);
+    return (await watch.done) ?? (await requireAnalysisRow(deps, organisationId, analysisId));
   } finally {
     watch.cancel();
   }

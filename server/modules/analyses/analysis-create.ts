@@ -62,7 +62,7 @@ export function specOf(request: CreateAnalysisRequest, stimulus: AnalysisJobSpec
 }
 
 export interface PreparedAnalysis {
-  row: Omit<AnalysisRow, 'organisationId' | 'worstMarginDb'>;
+  row: Omit<AnalysisRow, 'organisationId'>;
 }
 
 /** Validates the request against its capture and stimulus and builds the row to insert (status queued). */
@@ -110,6 +110,7 @@ export async function prepareAnalysis(
       resultJson: null,
       error: null,
       verdict: null,
+      worstMarginDb: null,
       calibration: null,
       engineVersion: null,
       createdAt: now,

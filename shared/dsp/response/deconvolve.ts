@@ -31,25 +31,60 @@ export { deconvolveWithReference, REFERENCE_REGULARISATION } from './reference-d
 
 export { harmonicAdvanceSeconds };
 
-/** Multiply `spectrum` in place by X̃(f)/(fs·A), the sweep's analytic inverse (Novak et al. 2015). */
-export function applyAnalyticInverse(spectrum: Spectrum, fftSize: number, design: SweepDesign): void {
+/** X̃(f)/(fs·A) on the bins of one FFT size, as separate real and imaginary parts (bin 0 is 0). */
+interface InverseFilter {
+  re: Float64Array;
+  im: Float64Array;
+}
+
+/**
+ * The last few inverse filters built, by FFT size and sweep. A rig plays the same stimulus capture after capture,
+ * so the filter (a log, a table phasor and a square root per bin, the costliest per-bin loop of a response) is
+ * built once per worker thread and reused; 4 entries of at most fftSize/2 + 1 complex values each bound the memory.
+ * The cached values are the same numbers the loop would compute again, so results are unchanged.
+ */
+const INVERSE_FILTER_CACHE_SIZE = 4;
+const inverseFilters = new Map<string, InverseFilter>();
+
+function analyticInverseFilter(binCount: number, fftSize: number, design: SweepDesign): InverseFilter {
   const fs = design.sampleRateHz;
   const L = design.rateConstantSeconds;
   const f1 = design.parameters.startHz;
+  const key = `${binCount}|${fftSize}|${fs}|${L}|${f1}|${design.amplitude}`;
+  const cached = inverseFilters.get(key);
+  if (cached) {
+    // Most recently used last, so the oldest is the first evicted.
+    inverseFilters.delete(key);
+    inverseFilters.set(key, cached);
+    return cached;
+  }
   const binHz = fs / fftSize;
   const scale = (2 * Math.sqrt(binHz)) / (Math.sqrt(L) * fs * design.amplitude);
   const logBinRatio = Math.log(binHz / f1);
-  const { re, im } = spectrum;
+  const re = new Float64Array(binCount);
+  const im = new Float64Array(binCount);
   const phasor = new Float64Array(2);
-  re[0] = 0;
-  im[0] = 0;
-  for (let k = 1; k < re.length; k++) {
+  for (let k = 1; k < binCount; k++) {
     // Phase in cycles, −f·L·(1 − ln(f/f1)) + 1/8, reduced to [0, 1) (unitPhasor reduces it).
     const f = k * binHz;
     unitPhasor(0.125 - f * L * (1 - (Math.log(k) + logBinRatio)), phasor);
     const gain = scale * Math.sqrt(k);
-    const c = gain * phasor[0];
-    const s = gain * phasor[1];
+    re[k] = gain * phasor[0];
+    im[k] = gain * phasor[1];
+  }
+  const filter = { re, im };
+  inverseFilters.set(key, filter);
+  if (inverseFilters.size > INVERSE_FILTER_CACHE_SIZE) inverseFilters.delete(inverseFilters.keys().next().value!);
+  return filter;
+}
+
+/** Multiply `spectrum` in place by X̃(f)/(fs·A), the sweep's analytic inverse (Novak et al. 2015). */
+export function applyAnalyticInverse(spectrum: Spectrum, fftSize: number, design: SweepDesign): void {
+  const { re, im } = spectrum;
+  const filter = analyticInverseFilter(re.length, fftSize, design);
+  for (let k = 0; k < re.length; k++) {
+    const c = filter.re[k];
+    const s = filter.im[k];
     const a = re[k];
     const b = im[k];
     re[k] = a * c - b * s;

@@ -55,6 +55,9 @@ function decodeIntegerChannel(
   }
 }
 
+/** WAV samples are little-endian; a typed-array view reads them directly only on a little-endian host. */
+const LITTLE_ENDIAN_HOST = new Uint8Array(new Uint16Array([1]).buffer)[0] === 1;
+
 function decodeFloatChannel(
   bytes: Uint8Array,
   start: number,
@@ -64,12 +67,22 @@ function decodeFloatChannel(
   out: Float64Array,
   channel: number,
 ): void {
-  const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
-  let p = start;
-  if (bits === 32) {
-    for (let i = 0; i < frameCount; i++, p += stride) out[i] = view.getFloat32(p, true);
+  const width = bits / 8;
+  const offset = bytes.byteOffset + start;
+  if (LITTLE_ENDIAN_HOST && frameCount > 0 && offset % width === 0 && stride % width === 0) {
+    // Aligned samples on a little-endian host: read through a typed view, several times faster than a DataView.
+    const step = stride / width;
+    const length = (frameCount - 1) * step + 1;
+    const samples = bits === 32 ? new Float32Array(bytes.buffer, offset, length) : new Float64Array(bytes.buffer, offset, length);
+    for (let i = 0, j = 0; i < frameCount; i++, j += step) out[i] = samples[j];
   } else {
-    for (let i = 0; i < frameCount; i++, p += stride) out[i] = view.getFloat64(p, true);
+    const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
+    let p = start;
+    if (bits === 32) {
+      for (let i = 0; i < frameCount; i++, p += stride) out[i] = view.getFloat32(p, true);
+    } else {
+      for (let i = 0; i < frameCount; i++, p += stride) out[i] = view.getFloat64(p, true);
+    }
   }
   for (let i = 0; i < frameCount; i++) {
     const value = out[i];

@@ -97,6 +97,28 @@ describe('readWav: IEEE float, hand-built fixtures', () => {
     expect(Array.from(wav.channels[0])).toEqual([values[0], values[2]]);
     expect(Array.from(wav.channels[1])).toEqual([values[1], values[3]]);
   });
+
+  // Aligned samples are read through a typed view, others through a DataView: both must give the stored values.
+  for (const bits of [32, 64] as const) {
+    it(`reads ${bits}-bit float stereo the same whether the samples sit aligned in memory or not`, () => {
+      const left = [0.5, Math.fround(-0.1), 3, -1e-6];
+      const right = [-0.5, 0.25, Math.fround(1 / 3), 0];
+      const expected = (values: number[]) => (bits === 32 ? values.map(Math.fround) : values);
+      const file = riff([
+        chunk('fmt ', fmtBody({ formatTag: 3, channels: 2, sampleRateHz: 48_000, bitsPerSample: bits })),
+        // 12 + 24 + 12 + 8 bytes before the samples: offset 56, a multiple of both 4 and 8.
+        chunk('fact', u32(left.length)),
+        chunk('data', floatSamples(left.map((v, i) => [v, right[i]]), bits)),
+      ]);
+      const shifted = new Uint8Array(file.length + 1).subarray(1);
+      shifted.set(file);
+      for (const bytes of [file, shifted]) {
+        const wav = readWav(bytes);
+        expect(Array.from(wav.channels[0])).toEqual(expected(left));
+        expect(Array.from(wav.channels[1])).toEqual(expected(right));
+      }
+    });
+  }
 });
 
 describe('readWav: WAVE_FORMAT_EXTENSIBLE', () => {
