@@ -215,7 +215,7 @@ export const analysisSchema = z
     worstMarginDb: z.number().nullable().meta({ description: 'Smallest margin to the mask limits, dB (negative = outside); null without a mask verdict.', example: 1.8 }),
     warnings: z.array(engineWarningSchema),
     conventions: z.record(z.string(), z.union([z.string(), z.number()])).nullable(),
-    result: z.record(z.string(), z.unknown()).nullable().meta({ description: 'The engine result (kind, engineVersion, conventions, figures, curves, warnings), returned exactly as stored.' }),
+    result: z.record(z.string(), z.unknown()).nullable().meta({ description: 'The engine result (kind, engineVersion, conventions, figures, curves, warnings), returned exactly as stored; non-integer numbers keep 7 significant digits (conventions.numberPrecision).' }),
     error: problemSchema.nullable().meta({ description: 'Why it failed (problem object).' }),
   })
   .meta({ id: 'Analysis', description: 'An analysis job and, when finished, its result.' });

@@ -79,6 +79,14 @@ export function printFigures(figures: BenchFigures): void {
   ];
   process.stdout.write('\nFigures (targets of issue 5)\n');
   for (const [label, value, target] of rows) process.stdout.write(`  ${label.padEnd(48)} ${value.padEnd(52)} ${target}\n`);
+  const phases = counted.flatMap((c) => (c.phases ? [c.phases] : []));
+  if (phases.length) {
+    const describe = (key: keyof (typeof phases)[number]) => {
+      const values = phases.map((p) => p[key]).sort((a, b) => a - b);
+      return `${key.replace('Ms', '')} ${percentile(values, 50).toFixed(0)} / ${percentile(values, 99).toFixed(0)}`;
+    };
+    process.stdout.write(`  latency by phase, p50 / p99 ms (from the analyses' timestamps): ${(['uploadMs', 'queueMs', 'runMs', 'answerMs'] as const).map(describe).join(', ')}\n`);
+  }
   if (final) {
     const kinds = Object.entries(final.queryKinds).sort((a, b) => b[1] - a[1]).map(([kind, n]) => `${kind} ${(n / analyses).toFixed(1)}`);
     process.stdout.write(`  SQL statements per analysis by kind: ${kinds.join(', ')}\n`);

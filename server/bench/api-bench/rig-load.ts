@@ -7,9 +7,21 @@ import { Pool } from 'undici';
  * it shares the machine's cores with the server: one keep-alive connection per rig (undici Pool), no per-request
  * body building, and only the status field of each answer is looked at.
  */
+/**
+ * Where one request's time went, ms, from the analysis's own timestamps (same machine, same clock): sent → row
+ * created (upload received and checked), → claimed by a worker (queue), → finished (inputs, engine, result
+ * write), → answer received (notification, response).
+ */
+export interface RequestPhases {
+  uploadMs: number;
+  queueMs: number;
+  runMs: number;
+  answerMs: number;
+}
+
 export interface RigLoadResult {
   /** Latencies of answers that were 200 with status succeeded, ms, by completion time (ms since start). */
-  completions: Array<{ atMs: number; latencyMs: number }>;
+  completions: Array<{ atMs: number; latencyMs: number; phases: RequestPhases | null }>;
   errors: string[];
   elapsedSeconds: number;
   cpuSeconds: number;
@@ -24,6 +36,16 @@ export function multipartBody(analysisJson: string, wavBytes: Uint8Array, filena
       `--${BOUNDARY}\r\nContent-Disposition: form-data; name="file"; filename="${filename}"\r\nContent-Type: audio/wav\r\n\r\n`,
   );
   return Buffer.concat([head, wavBytes, Buffer.from(`\r\n--${BOUNDARY}--\r\n`)]);
+}
+
+const timestampOf = (text: string, field: string) => Date.parse(new RegExp(`"${field}":"([^"]+)"`).exec(text)?.[1] ?? '');
+
+function phasesOf(text: string, sentMs: number, receivedMs: number): RequestPhases | null {
+  const [created, started, finished] = ['createdAt', 'startedAt', 'finishedAt'].map((field) => timestampOf(text, field));
+  if (![created, started, finished].every(Number.isFinite)) return null;
+  const sent = performance.timeOrigin + sentMs;
+  const received = performance.timeOrigin + receivedMs;
+  return { uploadMs: created! - sent, queueMs: started! - created!, runMs: finished! - started!, answerMs: received - finished! };
 }
 
 export async function runRigLoad(options: { base: string; secret: string; body: Buffer; rigs: number; seconds: number; waitSeconds: number }): Promise<RigLoadResult> {
@@ -48,7 +70,7 @@ export async function runRigLoad(options: { base: string; secret: string; body: 
         // The status sits near the start of the analysis; no need to parse the whole result.
         const status = /"status":"(\w+)"/.exec(text)?.[1];
         const t1 = performance.now();
-        if (response.statusCode === 200 && status === 'succeeded') completions.push({ atMs: t1 - started, latencyMs: t1 - t0 });
+        if (response.statusCode === 200 && status === 'succeeded') completions.push({ atMs: t1 - started, latencyMs: t1 - t0, phases: phasesOf(text, t0, t1) });
         else errors.push(`${response.statusCode} ${status ?? /"code":"(\w+)"/.exec(text)?.[1] ?? ''} after ${((t1 - t0) / 1000).toFixed(0)} s`);
       } catch (error) {
         errors.push((error as Error).message);

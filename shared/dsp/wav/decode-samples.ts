@@ -55,6 +55,15 @@ function decodeIntegerChannel(
   }
 }
 
+/** Every `step`-th sample of `samples` into `out` (one channel of interleaved frames). */
+function copyStrided(samples: Float32Array | Float64Array, step: number, frameCount: number, out: Float64Array): void {
+  if (step === 1) {
+    out.set(samples.subarray(0, frameCount));
+    return;
+  }
+  for (let i = 0, j = 0; i < frameCount; i++, j += step) out[i] = samples[j];
+}
+
 /** WAV samples are little-endian; a typed-array view reads them directly only on a little-endian host. */
 const LITTLE_ENDIAN_HOST = new Uint8Array(new Uint16Array([1]).buffer)[0] === 1;
 
@@ -68,13 +77,18 @@ function decodeFloatChannel(
   channel: number,
 ): void {
   const width = bits / 8;
-  const offset = bytes.byteOffset + start;
-  if (LITTLE_ENDIAN_HOST && frameCount > 0 && offset % width === 0 && stride % width === 0) {
-    // Aligned samples on a little-endian host: read through a typed view, several times faster than a DataView.
+  if (LITTLE_ENDIAN_HOST && frameCount > 0 && stride % width === 0) {
+    // On a little-endian host the samples are read through a typed view, several times faster than a DataView. A
+    // view needs its start aligned to the sample width; many float files put the data at byte 58 (18-byte format
+    // chunk and a fact chunk), so unaligned samples are first copied to a fresh, aligned buffer.
     const step = stride / width;
     const length = (frameCount - 1) * step + 1;
-    const samples = bits === 32 ? new Float32Array(bytes.buffer, offset, length) : new Float64Array(bytes.buffer, offset, length);
-    for (let i = 0, j = 0; i < frameCount; i++, j += step) out[i] = samples[j];
+    const aligned = (bytes.byteOffset + start) % width === 0;
+    // A copy through the Uint8Array constructor: a Node Buffer's slice() would share the memory, not copy it.
+    const source = aligned ? bytes : new Uint8Array(bytes.subarray(start, start + length * width));
+    const offset = aligned ? bytes.byteOffset + start : 0;
+    if (bits === 32) copyStrided(new Float32Array(source.buffer, offset, length), step, frameCount, out);
+    else copyStrided(new Float64Array(source.buffer, offset, length), step, frameCount, out);
   } else {
     const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
     let p = start;

@@ -112,7 +112,9 @@ describe('readWav: IEEE float, hand-built fixtures', () => {
       ]);
       const shifted = new Uint8Array(file.length + 1).subarray(1);
       shifted.set(file);
-      for (const bytes of [file, shifted]) {
+      // A Node Buffer at an odd offset in a larger buffer, as an upload read from disk can be.
+      const pooled = Buffer.concat([Buffer.from([0x55]), Buffer.from(file)]).subarray(1);
+      for (const bytes of [file, shifted, pooled]) {
         const wav = readWav(bytes);
         expect(Array.from(wav.channels[0])).toEqual(expected(left));
         expect(Array.from(wav.channels[1])).toEqual(expected(right));

@@ -30,6 +30,7 @@ const LABELS: Record<string, string> = {
   timeZero: 'Time zero',
   noiseFloor: 'Noise floor',
   screening: 'High-order screening',
+  numberPrecision: 'Number precision',
 };
 
 /** The order the block lists them in: what the numbers mean first, how they were computed after. */
