@@ -7,7 +7,7 @@ import { newId } from '@server/lib/ids';
 import { addMonthsUtc, usagePeriodAt } from '@server/modules/usage/billing-period';
 import { setOrganisationPlan } from '@server/modules/usage/organisation-plan.service';
 import { onQuotaThreshold, type QuotaThresholdNotice } from '@server/modules/usage/quota-thresholds';
-import { recordStorageBytes, releaseAnalysis, reserveAnalysis } from '@server/modules/usage/usage.service';
+import { getUsageSummary, recordStorageBytes, releaseAnalysis, reserveAnalysis } from '@server/modules/usage/usage.service';
 import { bearer, createApiKey, signUp, type SignedUp } from '../support/actors';
 import { createTestContext, type TestContext } from '../support/test-app';
 
@@ -106,6 +106,25 @@ describe('monthly analysis quota', () => {
 });
 
 describe('quota thresholds', () => {
+  it('announces a threshold only once its charge has committed: another connection already sees the new total', async () => {
+    const user = await freshOrganisation({ analysesPerMonth: 5 });
+    const seen: Array<[number, number]> = [];
+    const stop = onQuotaThreshold(async (notice) => {
+      if (notice.organisationId !== user.organisationId) return;
+      // A plain read on another pooled connection sees committed rows only (InnoDB consistent read).
+      seen.push([notice.used, (await getUsageSummary(context.deps, user.organisationId)).analysesUsed]);
+    });
+    try {
+      for (let i = 0; i < 5; i++) await reserve(user.organisationId);
+    } finally {
+      stop();
+    }
+    expect(seen).toEqual([
+      [4, 4],
+      [5, 5],
+    ]);
+  });
+
   it('announces 80 % and 100 % once per period, as webhook events and to listeners', async () => {
     const user = await freshOrganisation({ analysesPerMonth: 5 });
     const endpoint = await user.agent

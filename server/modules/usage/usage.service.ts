@@ -4,7 +4,7 @@ import type { AppDeps } from '@server/deps';
 import { usagePeriodAt, type UsagePeriod } from './billing-period';
 import { getOrganisationPlan, getPlanLimits } from './organisation-plan.service';
 import { quotaExceeded } from './quota-problem';
-import { noticeThresholds } from './quota-thresholds';
+import { announceThresholds, noticeThresholds, type QuotaThresholdNotice } from './quota-thresholds';
 import {
   addStorageBytes,
   decrementCounter,
@@ -41,6 +41,17 @@ function inTransaction<T>(deps: AppDeps, tx: Executor | undefined, work: (db: Ex
 }
 
 /**
+ * `work` in its transaction (the caller's, or its own), then the threshold notices it recorded are announced: after
+ * the commit when the transaction is its own, so an e-mail never tells of a charge that was rolled back.
+ */
+async function chargeInTransaction<T>(deps: AppDeps, tx: Executor | undefined, work: (db: Executor, notices: QuotaThresholdNotice[]) => Promise<T>): Promise<T> {
+  const notices: QuotaThresholdNotice[] = [];
+  const result = await inTransaction(deps, tx, (db) => work(db, notices));
+  await announceThresholds(deps, notices);
+  return result;
+}
+
+/**
  * Charges one analysis and its audio seconds to the organisation's current monthly period, atomically against
  * the plan's limits: one conditional UPDATE (`used + 1 <= limit`), so 50 concurrent requests against a quota
  * of 20 give exactly 20 reservations. Over a limit → 429 quota_exceeded with the limit and `resetsAt`.
@@ -52,7 +63,7 @@ export async function reserveAnalysis(deps: AppDeps, orgId: string, input: Reser
   const now = deps.clock.now();
   // Everything on the caller's connection when given: taking a second pool connection while holding a
   // transaction's would starve the pool under load (every holder waiting for another).
-  return inTransaction(deps, tx, async (db) => {
+  return chargeInTransaction(deps, tx, async (db, notices) => {
     const plan = await getOrganisationPlan(deps, orgId, db);
     const period = usagePeriodAt(plan.periodAnchor, now);
     const maxAnalyses = plan.limits.analysesPerMonth;
@@ -81,14 +92,16 @@ export async function reserveAnalysis(deps: AppDeps, orgId: string, input: Reser
         now,
       });
     }
-    await noticeThresholds(deps, db, orgId, { quota: 'analyses', used: analysesUsed, limit: maxAnalyses, periodStart: period.start, periodEndsAt: period.end });
-    await noticeThresholds(deps, db, orgId, {
-      quota: 'audio_minutes',
-      used: roundMinutes(audioSecondsUsed),
-      limit: plan.limits.audioMinutesPerMonth,
-      periodStart: period.start,
-      periodEndsAt: period.end,
-    });
+    notices.push(...(await noticeThresholds(deps, db, orgId, { quota: 'analyses', used: analysesUsed, limit: maxAnalyses, periodStart: period.start, periodEndsAt: period.end })));
+    notices.push(
+      ...(await noticeThresholds(deps, db, orgId, {
+        quota: 'audio_minutes',
+        used: roundMinutes(audioSecondsUsed),
+        limit: plan.limits.audioMinutesPerMonth,
+        periodStart: period.start,
+        periodEndsAt: period.end,
+      })),
+    );
     return { period, analysesUsed, audioSecondsUsed, charged: true };
   });
 }
@@ -117,7 +130,7 @@ export async function releaseAnalysis(deps: AppDeps, orgId: string, analysisId: 
 export async function recordStorageBytes(deps: AppDeps, orgId: string, deltaBytes: number, tx?: Executor): Promise<{ storageBytes: number }> {
   if (!Number.isFinite(deltaBytes)) throw new RangeError('deltaBytes must be a finite number of bytes');
   const delta = Math.round(deltaBytes);
-  return inTransaction(deps, tx, async (db) => {
+  return chargeInTransaction(deps, tx, async (db, notices) => {
     const plan = await getOrganisationPlan(deps, orgId, db);
     await ensureStorageRow(db, orgId);
     const added = await addStorageBytes(db, orgId, delta, plan.limits.storageBytes);
@@ -127,7 +140,7 @@ export async function recordStorageBytes(deps: AppDeps, orgId: string, deltaByte
     }
     if (delta > 0) {
       const period = usagePeriodAt(plan.periodAnchor, deps.clock.now());
-      await noticeThresholds(deps, db, orgId, { quota: 'storage_bytes', used: storageBytes, limit: plan.limits.storageBytes, periodStart: period.start, periodEndsAt: period.end });
+      notices.push(...(await noticeThresholds(deps, db, orgId, { quota: 'storage_bytes', used: storageBytes, limit: plan.limits.storageBytes, periodStart: period.start, periodEndsAt: period.end })));
     }
     return { storageBytes };
   });
