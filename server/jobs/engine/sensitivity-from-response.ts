@@ -1,5 +1,6 @@
-import { bandMeanLevelDb, ENGINE_VERSION, EngineError, headphoneSensitivity, loudspeakerSensitivity, type AnalysisResult } from '@shared/dsp';
-import { DEFAULT_SENSITIVITY_BAND_HZ, type EngineTask } from './job-spec';
+import { ENGINE_VERSION, type AnalysisResult } from '@shared/dsp';
+import type { EngineTask } from './job-spec';
+import { curveSensitivity } from './sensitivity';
 
 /**
  * Loudspeaker or headphone sensitivity from the calibrated curve of a stored response analysis: the power mean
@@ -10,19 +11,15 @@ import { DEFAULT_SENSITIVITY_BAND_HZ, type EngineTask } from './job-spec';
 export function sensitivityFromResponse(task: EngineTask): AnalysisResult {
   const request = task.spec.sensitivity!;
   const source = request.source!;
-  const [lowHz, highHz] = request.bandHz ?? DEFAULT_SENSITIVITY_BAND_HZ;
-  const curve = { frequencyHz: Float64Array.from(source.frequencyHz), magnitudeDb: Float64Array.from(source.magnitudeDb) };
-  const measuredLevelDbSpl = bandMeanLevelDb(curve, lowHz, highHz, 'power', 'sensitivity.bandHz');
-  const { driveVoltageVrms, nominalImpedanceOhm } = task.spec.conditions;
-  if (driveVoltageVrms === undefined || nominalImpedanceOhm === undefined) {
-    throw new EngineError('sensitivity_conditions_missing', 'Sensitivity needs conditions.driveVoltageVrms and conditions.nominalImpedanceOhm.', { field: 'conditions.driveVoltageVrms' });
-  }
+  const { lowHz, highHz, measuredLevelDbSpl, driveVoltageVrms, nominalImpedanceOhm, perDrive: figures } = curveSensitivity(
+    source.frequencyHz,
+    source.magnitudeDb,
+    task,
+    source.distanceM,
+  );
   const band = `power mean (10·log10 of the mean of 10^(L/10), uniform in log frequency) of the calibrated response of ${source.analysisId} over ${lowHz}–${highHz} Hz`;
   const distance = source.distanceStated ? `measured at ${source.distanceM} m` : 'measured at a distance the source does not state, taken as 1 m';
   const loudspeaker = request.deviceType === 'loudspeaker';
-  const figures = loudspeaker
-    ? loudspeakerSensitivity({ measuredLevelDbSpl, measuredDistanceM: source.distanceM, driveVoltsRms: driveVoltageVrms, nominalImpedanceOhms: nominalImpedanceOhm })
-    : headphoneSensitivity({ measuredLevelDbSpl, driveVoltsRms: driveVoltageVrms, impedanceOhms: nominalImpedanceOhm });
   return {
     kind: 'sensitivity',
     engineVersion: ENGINE_VERSION,
