@@ -3,7 +3,7 @@ import type { AddressInfo } from 'node:net';
 import { createApp } from './app';
 import { startBanner } from './banner';
 import { ConfigError, loadConfig } from './config/env';
-import { createDatabase } from './db/client';
+import { createDatabase, databaseOptionsFor } from './db/client';
 import { applyMigrations } from './db/migrate';
 import { seedDemo } from './db/seed/seed';
 import type { AppDeps } from './deps';
@@ -30,7 +30,7 @@ async function main() {
   } catch (error) {
     throw new Error(`Cannot prepare the database at ${redactUrl(config.databaseUrl)}: ${(error as Error).message}`);
   }
-  const database = createDatabase(config.databaseUrl, { connectionLimit: config.databaseConnections, traceStatements: config.nodeEnv !== 'production' });
+  const database = createDatabase(config.databaseUrl, databaseOptionsFor(config));
   // E-mail and payments: the configured services, or (development) local fakes that catch everything.
   const hosted = await startHostedServices(
     { config, db: database.db, clock: systemClock },

@@ -2,7 +2,7 @@ import { once } from 'node:events';
 import type { AddressInfo } from 'node:net';
 import { createApp } from '@server/app';
 import { loadConfig } from '@server/config/env';
-import { createDatabase } from '@server/db/client';
+import { createDatabase, databaseOptionsFor } from '@server/db/client';
 import type { AppDeps } from '@server/deps';
 import { startJobRunner } from '@server/jobs/job-runner';
 import { startLoopDelayReport } from '@server/jobs/loop-delay-report';
@@ -20,7 +20,7 @@ async function main() {
   const queries = installQueryCounter();
   const config = loadConfig();
   const logger = createLogger(config.logLevel);
-  const database = createDatabase(config.databaseUrl, { connectionLimit: config.databaseConnections, traceStatements: config.nodeEnv !== 'production' });
+  const database = createDatabase(config.databaseUrl, databaseOptionsFor(config));
   const deps: AppDeps = { config, db: database.db, clock: systemClock, logger };
   const runner = startJobRunner(deps);
   const stopReport = startLoopDelayReport(logger, Number(process.env.BENCH_REPORT_MS ?? 10_000), () => ({ engine: runner.engineStats(), queries: queries.total, queryKinds: queries.byKeyword }));

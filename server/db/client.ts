@@ -23,6 +23,11 @@ export interface DatabaseOptions {
   traceStatements?: boolean;
 }
 
+/** The options every server process uses: the configured pool size, and statement traces outside production. */
+export function databaseOptionsFor(config: { databaseConnections: number; nodeEnv: string }): DatabaseOptions {
+  return { connectionLimit: config.databaseConnections, traceStatements: config.nodeEnv !== 'production' };
+}
+
 export function createDatabase(url: string, options: DatabaseOptions = {}): DatabaseHandle {
   const pool = mysql.createPool({
     uri: url,

@@ -10,7 +10,7 @@ import { getMaskForAnalysis } from '@server/modules/masks/masks.service';
 import { emitEvent } from '@server/modules/webhook-endpoints/webhooks.service';
 import type { EnginePool } from './engine-pool';
 import type { AnalysisJobSpec, EngineTask } from './engine/job-spec';
-import { finishJob, renewLease, requeueJob, type ClaimedJob } from './job-queue.repo';
+import { finishedColumns, finishJob, renewLease, requeueJob, type ClaimedJob } from './job-queue.repo';
 import { notifyJobFinished } from './job-notifier';
 
 export interface ProcessOptions {
@@ -65,22 +65,9 @@ function failureOf(error: unknown): Record<string, unknown> {
  * JSON as the database would return them, so an answer built from this row matches one built from a read.
  */
 function finishedRow(row: AnalysisRow, outcome: Parameters<typeof finishJob>[3]): AnalysisRow {
-  const asStored = <T>(value: T | null | undefined): T | null => (value == null ? null : (JSON.parse(JSON.stringify(value)) as T));
-  return {
-    ...row,
-    status: outcome.status,
-    progress: 1,
-    resultJson: outcome.resultJson ?? null,
-    error: asStored(outcome.error),
-    verdict: outcome.verdict ?? null,
-    worstMarginDb: outcome.worstMarginDb ?? null,
-    calibration: asStored(outcome.calibration),
-    engineVersion: outcome.engineVersion ?? null,
-    leaseOwner: null,
-    leaseExpiresAt: null,
-    finishedAt: outcome.now,
-    updatedAt: outcome.now,
-  };
+  const columns = finishedColumns(outcome);
+  const asStored = <T>(value: T | null): T | null => (value === null ? null : (JSON.parse(JSON.stringify(value)) as T));
+  return { ...row, ...columns, error: asStored(columns.error), calibration: asStored(columns.calibration) };
 }
 
 /** Final status, result and webhook event in one transaction: the event exists exactly when the status does. */
@@ -109,7 +96,7 @@ async function finish(deps: AppDeps, row: AnalysisRow, owner: string, outcome: P
  * attempts run out.
  */
 export async function processJob(deps: AppDeps, pool: EnginePool, job: ClaimedJob, options: ProcessOptions): Promise<'finished' | 'lost' | 'shutdown'> {
-  const { row } = job;
+  const row = job;
   const abort = new AbortController();
   const onShutdown = () => abort.abort(new Error('shutdown'));
   options.shutdown.addEventListener('abort', onShutdown);

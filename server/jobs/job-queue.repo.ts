@@ -5,13 +5,8 @@ import { executePrepared } from '@server/db/prepared';
 import { analyses } from '@server/db/tables';
 import type { AnalysisRow } from '@server/modules/analyses/analyses.repo';
 
-export interface ClaimedJob {
-  id: string;
-  organisationId: string;
-  attempts: number;
-  /** The row as the claim left it (running, leased to the claimer): the worker needs no second read. */
-  row: AnalysisRow;
-}
+/** The row as the claim left it (running, leased to the claimer, attempt counted): the worker needs no second read. */
+export type ClaimedJob = AnalysisRow;
 
 export interface ClaimOptions {
   owner: string;
@@ -84,7 +79,7 @@ export async function claimNextJob(db: Database, options: ClaimOptions): Promise
         progress: 0.1,
       };
       await tx.update(analyses).set(claim).where(eq(analyses.id, row.id));
-      return { kind: 'claimed' as const, job: { id: row.id, organisationId: row.organisationId, attempts: claim.attempts, row: { ...row, ...claim } } };
+      return { kind: 'claimed' as const, job: { ...row, ...claim } };
     });
     if (outcome.kind === 'none') return null;
     if (outcome.kind === 'claimed') return outcome.job;
@@ -117,24 +112,26 @@ export interface FinishJob {
  * writes, and the binary protocol carries it without escaping (server/db/prepared.ts).
  */
 export async function finishJob(scope: { tx: Executor; connection: PoolConnection }, jobId: string, owner: string, outcome: FinishJob): Promise<boolean> {
-  const statement = scope.tx
-    .update(analyses)
-    .set({
-      status: outcome.status,
-      progress: 1,
-      resultJson: outcome.resultJson ?? null,
-      error: outcome.error ?? null,
-      verdict: outcome.verdict ?? null,
-      worstMarginDb: outcome.worstMarginDb ?? null,
-      calibration: outcome.calibration ?? null,
-      engineVersion: outcome.engineVersion ?? null,
-      leaseOwner: null,
-      leaseExpiresAt: null,
-      finishedAt: outcome.now,
-      updatedAt: outcome.now,
-    })
-    .where(heldBy(jobId, owner));
+  const statement = scope.tx.update(analyses).set(finishedColumns(outcome)).where(heldBy(jobId, owner));
   return (await executePrepared(scope.connection, statement)) === 1;
+}
+
+/** The columns `finishJob` writes, so a copy of the finished row can be built from the same list. */
+export function finishedColumns(outcome: FinishJob) {
+  return {
+    status: outcome.status,
+    progress: 1,
+    resultJson: outcome.resultJson ?? null,
+    error: outcome.error ?? null,
+    verdict: outcome.verdict ?? null,
+    worstMarginDb: outcome.worstMarginDb ?? null,
+    calibration: outcome.calibration ?? null,
+    engineVersion: outcome.engineVersion ?? null,
+    leaseOwner: null,
+    leaseExpiresAt: null,
+    finishedAt: outcome.now,
+    updatedAt: outcome.now,
+  } satisfies Partial<AnalysisRow>;
 }
 
 /** Puts a job back in the queue without counting the attempt (graceful shutdown). */

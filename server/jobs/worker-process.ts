@@ -1,5 +1,5 @@
 import { loadConfig } from '@server/config/env';
-import { createDatabase } from '@server/db/client';
+import { createDatabase, databaseOptionsFor } from '@server/db/client';
 import type { AppDeps } from '@server/deps';
 import { systemClock } from '@server/lib/clock';
 import { createLogger } from '@server/lib/logger';
@@ -12,7 +12,7 @@ import { startJobRunner } from './job-runner';
 async function main() {
   const config = loadConfig();
   const logger = createLogger(config.logLevel);
-  const database = createDatabase(config.databaseUrl, { connectionLimit: config.databaseConnections, traceStatements: config.nodeEnv !== 'production' });
+  const database = createDatabase(config.databaseUrl, databaseOptionsFor(config));
   const deps: AppDeps = { config, db: database.db, clock: systemClock, logger };
   const runner = startJobRunner(deps, {
     pollMs: 100,

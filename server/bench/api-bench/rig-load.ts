@@ -7,6 +7,14 @@ import { Pool } from 'undici';
  * it shares the machine's cores with the server: one keep-alive connection per rig (undici Pool), no per-request
  * body building, and only the status field of each answer is looked at.
  */
+export interface RigLoadResult {
+  /** Latencies of answers that were 200 with status succeeded, ms, by completion time (ms since start). */
+  completions: Array<{ atMs: number; latencyMs: number; phases: RequestPhases | null }>;
+  errors: string[];
+  elapsedSeconds: number;
+  cpuSeconds: number;
+}
+
 /**
  * Where one request's time went, ms, from the analysis's own timestamps (same machine, same clock): sent → row
  * created (upload received and checked), → claimed by a worker (queue), → finished (inputs, engine, result
@@ -17,14 +25,6 @@ export interface RequestPhases {
   queueMs: number;
   runMs: number;
   answerMs: number;
-}
-
-export interface RigLoadResult {
-  /** Latencies of answers that were 200 with status succeeded, ms, by completion time (ms since start). */
-  completions: Array<{ atMs: number; latencyMs: number; phases: RequestPhases | null }>;
-  errors: string[];
-  elapsedSeconds: number;
-  cpuSeconds: number;
 }
 
 const BOUNDARY = '----sweepline-bench-4f1c2a9e';

@@ -98,7 +98,8 @@ describe('readWav: IEEE float, hand-built fixtures', () => {
     expect(Array.from(wav.channels[1])).toEqual([values[1], values[3]]);
   });
 
-  // Aligned samples are read through a typed view, others through a DataView: both must give the stored values.
+  // Samples are read through a typed view, straight from the file's bytes when aligned to the sample width, else from
+  // an aligned copy: every placement must give the stored values.
   for (const bits of [32, 64] as const) {
     it(`reads ${bits}-bit float stereo the same whether the samples sit aligned in memory or not`, () => {
       const left = [0.5, Math.fround(-0.1), 3, -1e-6];
